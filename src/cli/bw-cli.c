@@ -1,0 +1,69 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-cli.c: basinwright-cli, the scriptable face of the sizing engine: dispatch to subcommands. */
+#include "config.h"
+
+#include <locale.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "cli/bw-cli.h"
+
+static const BwCliCommand *const commands[] = {
+  &bw_cli_cmd_water,
+  &bw_cli_cmd_settle,
+};
+
+static void
+print_usage (FILE *to)
+{
+  fprintf (to, "Usage: basinwright-cli COMMAND [OPTIONS]\n"
+               "       basinwright-cli COMMAND --help\n"
+               "       basinwright-cli --version\n\n"
+               "Sizing calculations for coagulation, flocculation and sedimentation.\n\n"
+               "Commands:\n");
+  for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
+    fprintf (to, "  %-10s %s\n", commands[i]->name, commands[i]->summary);
+  fprintf (to, "\nExit status: 0 success, 1 a check found a failing required criterion, 2 a usage\n"
+               "or input error (one line on stderr names the option and the reason).\n\n"
+               "Results are a preliminary design aid: verify them with a licensed professional\n"
+               "engineer; local codes and the approving authority govern.\n");
+}
+
+int
+main (int argc, char **argv)
+{
+  BwCliArgs args;
+  int code;
+
+  setlocale (LC_ALL, "");
+
+  if (argc < 2)
+    {
+      print_usage (stderr);
+      return BW_CLI_EXIT_USAGE;
+    }
+  if (strcmp (argv[1], "--help") == 0 || strcmp (argv[1], "-h") == 0 || strcmp (argv[1], "help") == 0)
+    {
+      print_usage (stdout);
+      return BW_CLI_EXIT_OK;
+    }
+  if (strcmp (argv[1], "--version") == 0)
+    {
+      printf ("basinwright-cli %s\n", PACKAGE_VERSION);
+      return BW_CLI_EXIT_OK;
+    }
+  for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
+    if (strcmp (argv[1], commands[i]->name) == 0)
+      {
+        if (!bw_cli_parse (commands[i], argc - 1, argv + 1, &args, &code))
+          {
+            bw_cli_args_clear (&args);
+            return code;
+          }
+        code = commands[i]->run (&args);
+        bw_cli_args_clear (&args);
+        fflush (stdout);
+        return code;
+      }
+  return bw_cli_usage_error (NULL, "unknown command '%s' (see basinwright-cli --help)", argv[1]);
+}
