@@ -63,15 +63,20 @@ print_help (const BwCliCommand *cmd)
   for (guint i = 0; i < cmd->n_specs; i++)
     {
       const BwOptSpec *o = &cmd->specs[i];
-      g_string_append_printf (s, o->required ? " --%s %s" : " [--%s %s]", o->name,
-                              o->metavar ? o->metavar : "VALUE");
+      if (o->type == BW_OPT_FLAG)
+        g_string_append_printf (s, o->required ? " --%s" : " [--%s]", o->name);
+      else
+        g_string_append_printf (s, o->required ? " --%s %s" : " [--%s %s]", o->name,
+                                o->metavar ? o->metavar : "VALUE");
     }
   g_string_append (s, " [--json] [--units si|us]\n\n");
   g_string_append_printf (s, "%s\n\nOptions:\n", cmd->summary);
   for (guint i = 0; i < cmd->n_specs; i++)
     {
       const BwOptSpec *o = &cmd->specs[i];
-      g_autofree char *left = g_strdup_printf ("--%s %s", o->name, o->metavar ? o->metavar : "VALUE");
+      g_autofree char *left = o->type == BW_OPT_FLAG
+                                  ? g_strdup_printf ("--%s", o->name)
+                                  : g_strdup_printf ("--%s %s", o->name, o->metavar ? o->metavar : "VALUE");
       g_string_append_printf (s, "  %-26s %s", left, o->help);
       if (o->type == BW_OPT_QUANTITY)
         g_string_append_printf (s, " (%s; a bare number is in %s)", bw_quantity_kind_name (o->kind),
@@ -112,15 +117,10 @@ parse_value (const BwCliCommand *cmd, const BwOptSpec *spec, const char *text, B
       break;
     case BW_OPT_NUMBER:
       {
-        /* A plain number: the unit parser with the dimensionless kind refuses any suffix but %. */
-        if (!bw_units_parse (text, BW_KIND_FRACTION, NULL, field, &val->value, &error))
+        /* A plain number: the unit parser with the dimensionless kind refuses any suffix. */
+        if (!bw_units_parse (text, BW_KIND_NUMBER, NULL, field, &val->value, &error))
           {
             bw_cli_usage_error (cmd->name, "%s", error->message);
-            return FALSE;
-          }
-        if (strchr (text, '%'))
-          {
-            bw_cli_usage_error (cmd->name, "%s: '%s' must be a plain number", field, text);
             return FALSE;
           }
         break;
@@ -244,6 +244,16 @@ bw_cli_parse (const BwCliCommand *cmd, int argc, char **argv, BwCliArgs *out, in
                                   name, cmd->name);
               return FALSE;
             }
+          if (spec->type == BW_OPT_FLAG)
+            {
+              if (inline_value)
+                {
+                  bw_cli_usage_error (cmd->name, "--%s takes no value", name);
+                  return FALSE;
+                }
+              out->values[idx].given = TRUE;
+              continue;
+            }
           if (g_ptr_array_index (raw, idx) != NULL)
             {
               bw_cli_usage_error (cmd->name, "--%s is given more than once", name);
@@ -284,6 +294,15 @@ bw_cli_parse (const BwCliCommand *cmd, int argc, char **argv, BwCliArgs *out, in
   for (guint i = 0; i < cmd->n_specs; i++)
     {
       const char *text = g_ptr_array_index (raw, i);
+      if (cmd->specs[i].type == BW_OPT_FLAG)
+        {
+          if (cmd->specs[i].required && !out->values[i].given)
+            {
+              bw_cli_usage_error (cmd->name, "--%s is required", cmd->specs[i].name);
+              return FALSE;
+            }
+          continue;
+        }
       if (text == NULL)
         {
           if (cmd->specs[i].required)

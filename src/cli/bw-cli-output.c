@@ -151,6 +151,17 @@ bw_json_print_free (BwJson *j)
   g_free (j);
 }
 
+char *
+bw_cli_pad (const char *text, int width)
+{
+  const glong n = g_utf8_strlen (text ? text : "", -1);
+  GString *s = g_string_new (text);
+
+  for (glong i = n; i < width; i++)
+    g_string_append_c (s, ' ');
+  return g_string_free (s, FALSE);
+}
+
 /* --- readable tables --- */
 
 struct _BwTable

@@ -11,6 +11,18 @@
 static const BwCliCommand *const commands[] = {
   &bw_cli_cmd_water,
   &bw_cli_cmd_settle,
+  &bw_cli_cmd_gvalue,
+  &bw_cli_cmd_impeller,
+  &bw_cli_cmd_paddle,
+  &bw_cli_cmd_baffled,
+  &bw_cli_cmd_flocmodel,
+  &bw_cli_cmd_basin,
+  &bw_cli_cmd_scour,
+  &bw_cli_cmd_plates,
+  &bw_cli_cmd_removal,
+  &bw_cli_cmd_compute,
+  &bw_cli_cmd_check,
+  &bw_cli_cmd_criteria,
 };
 
 static void

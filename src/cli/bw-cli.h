@@ -22,6 +22,7 @@ typedef enum
   BW_OPT_INT,      /* a whole number */
   BW_OPT_CHOICE,   /* one word out of CHOICES ('|'-separated) */
   BW_OPT_STRING,   /* free text (a path, a name) */
+  BW_OPT_FLAG,     /* takes no value: given or not */
 } BwOptType;
 
 typedef struct
@@ -110,8 +111,23 @@ void bw_table_text (BwTable *t, const char *label, const char *text);
 void bw_table_number (BwTable *t, const char *label, double value, int sig);
 void bw_table_print_free (BwTable *t);
 
+/* TEXT padded with spaces to WIDTH characters (not bytes: "m³" is two characters). */
+char *bw_cli_pad (const char *text, int width);
+
 /* Every subcommand, for the dispatcher and the help text. */
 extern const BwCliCommand bw_cli_cmd_water;
 extern const BwCliCommand bw_cli_cmd_settle;
+extern const BwCliCommand bw_cli_cmd_gvalue;
+extern const BwCliCommand bw_cli_cmd_impeller;
+extern const BwCliCommand bw_cli_cmd_paddle;
+extern const BwCliCommand bw_cli_cmd_baffled;
+extern const BwCliCommand bw_cli_cmd_flocmodel;
+extern const BwCliCommand bw_cli_cmd_basin;
+extern const BwCliCommand bw_cli_cmd_scour;
+extern const BwCliCommand bw_cli_cmd_plates;
+extern const BwCliCommand bw_cli_cmd_removal;
+extern const BwCliCommand bw_cli_cmd_compute;
+extern const BwCliCommand bw_cli_cmd_check;
+extern const BwCliCommand bw_cli_cmd_criteria;
 
 G_END_DECLS

@@ -19,6 +19,16 @@ bw_check_finite (double value, const char *field, GError **error)
 }
 
 gboolean
+bw_check_result (double value, const char *field, const char *what, GError **error)
+{
+  if (isfinite (value))
+    return TRUE;
+  g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+               "%s: the value is too large: the %s would not be a finite number", field, what);
+  return FALSE;
+}
+
+gboolean
 bw_check_positive (double value, const char *field, GError **error)
 {
   if (!bw_check_finite (value, field, error))

@@ -31,4 +31,8 @@ gboolean bw_check_nonnegative (double value, const char *field, GError **error);
 gboolean bw_check_range (double value, double lo, double hi, const char *field,
                          const char *unit_label, GError **error);
 
+/* Refuses a result that overflowed, naming the input FIELD that drove it there; WHAT names the
+ * result ("power"). */
+gboolean bw_check_result (double value, const char *field, const char *what, GError **error);
+
 G_END_DECLS

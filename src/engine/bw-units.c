@@ -210,6 +210,7 @@ static const char *const kind_names[BW_N_KINDS] = {
   [BW_KIND_POTENTIAL] = "electric potential",
   [BW_KIND_MOLAR_CONCENTRATION] = "molar concentration",
   [BW_KIND_TURBIDITY] = "turbidity",
+  [BW_KIND_NUMBER] = "number",
 };
 
 /* Display units: [kind][system] by ASCII spelling. */
@@ -239,6 +240,7 @@ static const char *const display_ascii[BW_N_KINDS][2] = {
   [BW_KIND_POTENTIAL] = { "mV", "mV" },
   [BW_KIND_MOLAR_CONCENTRATION] = { "mol/m3", "mol/m3" },
   [BW_KIND_TURBIDITY] = { "NTU", "NTU" },
+  [BW_KIND_NUMBER] = { NULL, NULL },
 };
 
 /* SI units by ASCII spelling; the head and surface-loading kinds borrow their family's unit. */
@@ -268,9 +270,12 @@ static const char *const si_ascii[BW_N_KINDS] = {
   [BW_KIND_POTENTIAL] = "V",
   [BW_KIND_MOLAR_CONCENTRATION] = "mol/m3",
   [BW_KIND_TURBIDITY] = "NTU",
+  [BW_KIND_NUMBER] = NULL,
 };
 
+/* The unit of a plain number: no symbol. */
 static const BwUnit fraction_unit = { "", "", BW_KIND_FRACTION, 1.0, 0.0 };
+static const BwUnit number_unit = { "", "", BW_KIND_NUMBER, 1.0, 0.0 };
 
 const char *
 bw_quantity_kind_name (BwQuantityKind kind)
@@ -478,6 +483,8 @@ bw_unit_lookup (const char *spelling, BwQuantityKind kind, const char *field, GE
   name = normalise_unit (spelling);
   if (kind == BW_KIND_FRACTION && name[0] == '\0')
     return &fraction_unit;
+  if (kind == BW_KIND_NUMBER && name[0] == '\0')
+    return &number_unit;
 
   d = find_unit (name, kind, FALSE, &ambiguous);
   if (d)
@@ -488,12 +495,19 @@ bw_unit_lookup (const char *spelling, BwQuantityKind kind, const char *field, GE
                    "%s: the unit '%s' is ambiguous; mind upper and lower case", field, spelling);
       return NULL;
     }
+  if (kind == BW_KIND_NUMBER)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_WRONG_KIND,
+                   "%s: a plain number is wanted, without a unit ('%s')", field, spelling);
+      return NULL;
+    }
   d = find_unit (name, kind, TRUE, &ambiguous);
   if (d)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_WRONG_KIND,
-                   "%s: '%s' is a unit of %s, but a %s is wanted", field, spelling,
-                   kind_names[d->unit.kind], kind_names[kind]);
+                   "%s: '%s' is a unit of %s, but %s %s is wanted", field, spelling,
+                   kind_names[d->unit.kind], strchr ("aeiou", kind_names[kind][0]) ? "an" : "a",
+                   kind_names[kind]);
       return NULL;
     }
   {
@@ -534,7 +548,7 @@ bw_units_si_unit (BwQuantityKind kind)
 {
   g_return_val_if_fail (kind < BW_N_KINDS, NULL);
   if (si_ascii[kind] == NULL)
-    return &fraction_unit;
+    return kind == BW_KIND_NUMBER ? &number_unit : &fraction_unit;
   return unit_by_ascii (si_ascii[kind]);
 }
 
@@ -543,6 +557,8 @@ bw_units_display_unit (BwQuantityKind kind, BwUnitSystem system)
 {
   g_return_val_if_fail (kind < BW_N_KINDS, NULL);
   g_return_val_if_fail (system == BW_UNIT_SYSTEM_SI || system == BW_UNIT_SYSTEM_US, NULL);
+  if (display_ascii[kind][system] == NULL)
+    return bw_units_si_unit (kind);
   return unit_by_ascii (display_ascii[kind][system]);
 }
 

@@ -34,6 +34,7 @@ typedef enum
   BW_KIND_POTENTIAL,           /* V */
   BW_KIND_MOLAR_CONCENTRATION, /* mol/m3 */
   BW_KIND_TURBIDITY,           /* NTU (not an SI quantity; kept in NTU) */
+  BW_KIND_NUMBER,              /* a plain dimensionless number (Re, Gt, a ratio); no unit */
   BW_N_KINDS
 } BwQuantityKind;
 

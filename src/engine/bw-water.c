@@ -173,3 +173,12 @@ bw_water_properties (double temperature_K, BwWater *out, GError **error)
   out->relative_permittivity = bw_water_relative_permittivity (temperature_K);
   return TRUE;
 }
+
+gboolean
+bw_water_check (const BwWater *w, GError **error)
+{
+  g_return_val_if_fail (w != NULL, FALSE);
+  if (!bw_check_positive (w->density_kg_m3, "water density", error))
+    return FALSE;
+  return bw_check_positive (w->dynamic_viscosity_Pa_s, "water viscosity", error);
+}

@@ -37,4 +37,8 @@ double bw_water_relative_permittivity (double temperature_K); /* dimensionless *
  * Arguments outside 253.15-1173.15 K and 0-1200 kg/m3 are clamped, so the result is finite. */
 double bw_water_viscosity_iapws2008 (double temperature_K, double density_kg_m3);
 
+/* The water must be a real liquid: positive, finite density and viscosity. Models call it on
+ * what they are given (bw_water_properties output, or rounded textbook properties in tests). */
+gboolean bw_water_check (const BwWater *w, GError **error);
+
 G_END_DECLS

@@ -1,0 +1,283 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-params.c: the parameter tables of every process unit and flocculator stage. Valid ranges
+ * are physical or practical bounds (common practice, no source); the design criteria judge the
+ * design, these only refuse what is meaningless. */
+#include "config.h"
+
+#include "engine/bw-params.h"
+
+#include <math.h>
+#include <string.h>
+
+#include "engine/bw-error.h"
+
+#define Q(id, label, kind, def, lo, hi, help) \
+  { id, label, BW_PARAM_QUANTITY, kind, def, lo, hi, TRUE, NULL, FALSE, help }
+#define QOPT(id, label, kind, lo, hi, help) \
+  { id, label, BW_PARAM_QUANTITY, kind, 0.0, lo, hi, TRUE, NULL, TRUE, help }
+#define N(id, label, def, lo, hi, help) \
+  { id, label, BW_PARAM_COUNT, BW_KIND_NUMBER, def, lo, hi, FALSE, NULL, FALSE, help }
+#define CH(...) ((const char *const[]) { __VA_ARGS__, NULL })
+#define C(id, label, def, choices, help) \
+  { id, label, BW_PARAM_CHOICE, BW_KIND_NUMBER, def, 0, 0, FALSE, choices, FALSE, help }
+
+static const BwParamSpec rapid_mix[] = {
+  C ("shape", "tank shape", 0, CH ("square", "cylindrical"), "plan shape of the tank"),
+  Q ("width", "width or diameter", BW_KIND_LENGTH, 1.2, 0, 20, "inside width (square) or diameter"),
+  Q ("liquid-depth", "liquid depth", BW_KIND_LENGTH, 1.4, 0, 20, "depth of water in the tank"),
+  C ("baffles", "wall baffles", 0, CH ("baffled", "unbaffled"), "baffles stop the swirl that lowers power"),
+  C ("impeller", "impeller", 0, CH ("rushton", "pitched-blade-45", "hydrofoil", "custom"),
+     "impeller type; custom takes the power number below"),
+  Q ("impeller-diameter", "impeller diameter", BW_KIND_LENGTH, 0.45, 0, 10, "tip-to-tip diameter"),
+  Q ("speed", "impeller speed", BW_KIND_ROTATIONAL_SPEED, 110.0 / 60.0, 0, 100, "shaft speed"),
+  QOPT ("power-number", "power number", BW_KIND_NUMBER, 0, 20,
+        "turbulent power number; needed for a custom impeller or an unbaffled tank"),
+  Q ("drive-efficiency", "drive efficiency", BW_KIND_FRACTION, 0.8, 0, 1,
+     "motor and gear efficiency: motor power = water power / efficiency"),
+};
+
+static const BwParamSpec inline_mixer[] = {
+  Q ("headloss", "head loss", BW_KIND_HEAD, 0.3, 0, 50, "head lost across the mixer"),
+  Q ("volume", "mixing volume", BW_KIND_VOLUME, 0.1, 0, 1000, "volume over which the energy is spent"),
+};
+
+static const BwParamSpec flocculator[] = {
+  Q ("width", "basin width", BW_KIND_LENGTH, 12.0, 0, 200, "width across the flow"),
+  Q ("water-depth", "water depth", BW_KIND_LENGTH, 4.0, 0, 20, "depth of water in every stage"),
+};
+
+static const BwParamSpec paddle_stage[] = {
+  Q ("length", "stage length", BW_KIND_LENGTH, 4.0, 0, 100, "length of the compartment along the flow"),
+  C ("shaft", "shaft", 0, CH ("horizontal", "vertical"), "shaft orientation"),
+  N ("wheels", "paddle wheels", 3, 1, 50, "paddle wheels on the shaft in this stage"),
+  N ("arms", "arms per wheel", 4, 1, 12, "arms on each wheel"),
+  Q ("blade-radius-1", "outer blade radius", BW_KIND_LENGTH, 1.5, 0, 20,
+     "shaft to blade centreline; each radius given adds a blade to every arm"),
+  QOPT ("blade-radius-2", "second blade radius", BW_KIND_LENGTH, 0, 20, "shaft to blade centreline"),
+  QOPT ("blade-radius-3", "third blade radius", BW_KIND_LENGTH, 0, 20, "shaft to blade centreline"),
+  Q ("blade-length", "blade length", BW_KIND_LENGTH, 2.5, 0, 50, "length of a blade"),
+  Q ("blade-width", "blade width", BW_KIND_LENGTH, 0.15, 0, 5, "width of a blade"),
+  Q ("speed", "shaft speed", BW_KIND_ROTATIONAL_SPEED, 3.0 / 60.0, 0, 5, "rotational speed"),
+  Q ("velocity-factor", "relative-velocity factor", BW_KIND_NUMBER, 0.75, 0, 1,
+     "blade velocity relative to the water / blade velocity"),
+  QOPT ("drag-coefficient", "drag coefficient", BW_KIND_NUMBER, 0, 5,
+        "overrides the value from the blade's length/width ratio"),
+};
+
+static const BwParamSpec turbine_stage[] = {
+  Q ("length", "stage length", BW_KIND_LENGTH, 4.0, 0, 100, "length of the compartment along the flow"),
+  C ("impeller", "impeller", 2, CH ("rushton", "pitched-blade-45", "hydrofoil", "custom"), "impeller type"),
+  C ("baffles", "wall baffles", 0, CH ("baffled", "unbaffled"), "an unbaffled compartment needs a power number"),
+  Q ("impeller-diameter", "impeller diameter", BW_KIND_LENGTH, 2.0, 0, 20, "tip-to-tip diameter"),
+  Q ("speed", "impeller speed", BW_KIND_ROTATIONAL_SPEED, 20.0 / 60.0, 0, 50, "shaft speed"),
+  QOPT ("power-number", "power number", BW_KIND_NUMBER, 0, 20, "needed for a custom impeller"),
+};
+
+static const BwParamSpec baffled_stage[] = {
+  C ("style", "flow path", 0, CH ("around-the-end", "over-and-under"),
+     "horizontal or vertical serpentine; each pass spans the basin width"),
+  N ("passes", "passes", 12, 2, 500, "channels in series; the stage is passes x spacing long"),
+  Q ("spacing", "baffle spacing", BW_KIND_LENGTH, 0.6, 0, 20, "clear width of each channel"),
+  QOPT ("turn-coefficient", "turn loss coefficient", BW_KIND_NUMBER, 0, 20,
+        "head loss per turn in velocity heads; empty: the default of the flow path"),
+  Q ("manning-n", "Manning's n", BW_KIND_NUMBER, 0.013, 0, 0.1, "channel roughness"),
+};
+
+static const BwParamSpec rect_basin[] = {
+  Q ("length", "length", BW_KIND_LENGTH, 40.0, 0, 500, "length along the flow"),
+  Q ("width", "width", BW_KIND_LENGTH, 9.0, 0, 100, "width across the flow"),
+  Q ("side-water-depth", "side water depth", BW_KIND_LENGTH, 4.0, 0, 20, "depth of water at the wall"),
+  QOPT ("weir-length", "weir length", BW_KIND_LENGTH, 0, 10000,
+        "total length of effluent weir (count both sides of a launder)"),
+  C ("inlet", "inlet", 0, CH ("perforated-baffle", "inlet-baffle", "none"), "inlet arrangement"),
+  Q ("sludge-depth", "sludge zone depth", BW_KIND_LENGTH, 0.5, 0, 10, "allowance below the settling zone"),
+  Q ("particle-diameter", "scour particle diameter", BW_KIND_LENGTH, 100e-6, 0, 0.01,
+     "design particle for Camp's scour velocity"),
+  Q ("particle-sg", "scour particle specific gravity", BW_KIND_NUMBER, 1.25, 1, 10,
+     "specific gravity of the settled floc or particle"),
+  Q ("cohesion", "cohesion constant k", BW_KIND_NUMBER, 0.05, 0, 1, "Camp's k, 0.04-0.06"),
+  Q ("friction", "friction factor f", BW_KIND_NUMBER, 0.025, 0, 1, "Darcy-Weisbach f, 0.02-0.03"),
+  QOPT ("design-settling-velocity", "design settling velocity", BW_KIND_VELOCITY, 0, 1,
+        "for the predicted removal of the design particle"),
+};
+
+static const BwParamSpec circular[] = {
+  Q ("diameter", "diameter", BW_KIND_LENGTH, 30.0, 0, 200, "inside diameter"),
+  Q ("side-water-depth", "side water depth", BW_KIND_LENGTH, 4.0, 0, 20, "depth of water at the wall"),
+  QOPT ("feed-well-diameter", "feed well diameter", BW_KIND_LENGTH, 0, 100, "centre feed well"),
+  C ("launder", "launder", 0, CH ("peripheral", "inboard"), "effluent launder position"),
+  QOPT ("launder-radius", "launder radius", BW_KIND_LENGTH, 0, 100,
+        "radius of an inboard launder (weirs on both sides)"),
+  Q ("sludge-depth", "sludge zone depth", BW_KIND_LENGTH, 0.5, 0, 10, "allowance for the sloped floor"),
+  QOPT ("design-settling-velocity", "design settling velocity", BW_KIND_VELOCITY, 0, 1,
+        "for the predicted removal of the design particle"),
+};
+
+static const BwParamSpec plate_settler[] = {
+  C ("shape", "channel shape", 0, CH ("plates", "circular-tubes", "square-tubes"), "plates or tubes"),
+  Q ("angle", "angle from horizontal", BW_KIND_ANGLE, G_PI / 3, 0, G_PI / 2, "inclination"),
+  Q ("spacing", "spacing or tube size", BW_KIND_LENGTH, 0.05, 0, 2, "perpendicular plate spacing or tube diameter"),
+  Q ("length", "length along the incline", BW_KIND_LENGTH, 1.2, 0, 10, "plate or tube length"),
+  Q ("plate-width", "plate width", BW_KIND_LENGTH, 1.5, 0, 10, "width of a plate or of a tube row"),
+  N ("count", "plates or tubes", 100, 1, 1000000, "plates (or tube channels) per unit"),
+  QOPT ("module-area", "module plan area", BW_KIND_AREA, 0, 100000,
+        "plan area the modules cover, for the loading on the covered area"),
+  QOPT ("design-settling-velocity", "design settling velocity", BW_KIND_VELOCITY, 0, 1,
+        "for the predicted removal of the design particle"),
+};
+
+typedef struct
+{
+  const char *name;
+  const char *label;
+  const BwParamSpec *params;
+  guint n;
+} TypeInfo;
+
+#define T(name, label, table) { name, label, table, G_N_ELEMENTS (table) }
+
+static const TypeInfo types[BW_N_PROCESS_TYPES] = {
+  [BW_PROCESS_RAPID_MIX] = T ("rapid-mix", "rapid-mix tank", rapid_mix),
+  [BW_PROCESS_INLINE_MIXER] = T ("inline-mixer", "in-line mixer", inline_mixer),
+  [BW_PROCESS_FLOCCULATOR] = T ("flocculator", "flocculator", flocculator),
+  [BW_PROCESS_RECTANGULAR_BASIN] = T ("rectangular-basin", "rectangular settling basin", rect_basin),
+  [BW_PROCESS_CIRCULAR_CLARIFIER] = T ("circular-clarifier", "circular clarifier", circular),
+  [BW_PROCESS_PLATE_SETTLER] = T ("plate-settler", "plate or tube settler", plate_settler),
+  [BW_STAGE_PADDLE] = T ("paddle-stage", "paddle stage", paddle_stage),
+  [BW_STAGE_TURBINE] = T ("turbine-stage", "turbine stage", turbine_stage),
+  [BW_STAGE_BAFFLED] = T ("baffled-stage", "baffled-channel stage", baffled_stage),
+};
+
+G_STATIC_ASSERT (G_N_ELEMENTS (paddle_stage) <= BW_MAX_PARAMS);
+G_STATIC_ASSERT (G_N_ELEMENTS (rect_basin) <= BW_MAX_PARAMS);
+
+const char *
+bw_process_type_name (BwProcessType t)
+{
+  g_return_val_if_fail (t < BW_N_PROCESS_TYPES, "unknown");
+  return types[t].name;
+}
+
+const char *
+bw_process_type_label (BwProcessType t)
+{
+  g_return_val_if_fail (t < BW_N_PROCESS_TYPES, "unknown");
+  return types[t].label;
+}
+
+gboolean
+bw_process_type_from_name (const char *name, BwProcessType *out)
+{
+  if (name == NULL)
+    return FALSE;
+  for (int i = 0; i < BW_N_PROCESS_TYPES; i++)
+    if (strcmp (types[i].name, name) == 0)
+      {
+        *out = (BwProcessType) i;
+        return TRUE;
+      }
+  return FALSE;
+}
+
+gboolean
+bw_process_type_is_stage (BwProcessType t)
+{
+  return t == BW_STAGE_PADDLE || t == BW_STAGE_TURBINE || t == BW_STAGE_BAFFLED;
+}
+
+const BwParamSpec *
+bw_params_of (BwProcessType type, guint *n)
+{
+  g_return_val_if_fail (type < BW_N_PROCESS_TYPES, NULL);
+  if (n)
+    *n = types[type].n;
+  return types[type].params;
+}
+
+int
+bw_param_index (BwProcessType type, const char *id)
+{
+  g_return_val_if_fail (type < BW_N_PROCESS_TYPES, -1);
+  for (guint i = 0; i < types[type].n; i++)
+    if (strcmp (types[type].params[i].id, id) == 0)
+      return (int) i;
+  return -1;
+}
+
+const char *
+bw_param_choice_name (const BwParamSpec *spec, int index)
+{
+  g_return_val_if_fail (spec && spec->type == BW_PARAM_CHOICE, NULL);
+  for (int i = 0; spec->choices[i]; i++)
+    if (i == index)
+      return spec->choices[i];
+  return NULL;
+}
+
+char *
+bw_param_choices_joined (const BwParamSpec *spec)
+{
+  g_return_val_if_fail (spec && spec->type == BW_PARAM_CHOICE, NULL);
+  return g_strjoinv ("|", (char **) spec->choices);
+}
+
+gboolean
+bw_param_choice_index (const BwParamSpec *spec, const char *name, int *out)
+{
+  g_return_val_if_fail (spec && spec->type == BW_PARAM_CHOICE, FALSE);
+  for (int i = 0;; i++)
+    {
+      const char *c = bw_param_choice_name (spec, i);
+      if (c == NULL)
+        return FALSE;
+      if (g_strcmp0 (c, name) == 0)
+        {
+          *out = i;
+          return TRUE;
+        }
+    }
+}
+
+gboolean
+bw_param_check (const BwParamSpec *spec, double value, GError **error)
+{
+  g_return_val_if_fail (spec != NULL, FALSE);
+  if (!bw_check_finite (value, spec->label, error))
+    return FALSE;
+  switch (spec->type)
+    {
+    case BW_PARAM_CHOICE:
+      if (value != floor (value) || bw_param_choice_name (spec, (int) value) == NULL)
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                       "%s: not one of the offered choices", spec->label);
+          return FALSE;
+        }
+      return TRUE;
+    case BW_PARAM_COUNT:
+      if (value != floor (value) || value < spec->min || value > spec->max)
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                       "%s: must be a whole number from %g to %g (got %g)", spec->label, spec->min,
+                       spec->max, value);
+          return FALSE;
+        }
+      return TRUE;
+    case BW_PARAM_QUANTITY:
+      if (spec->optional && value == 0.0)
+        return TRUE;
+      if ((spec->min_exclusive ? value <= spec->min : value < spec->min) || value > spec->max)
+        {
+          const BwUnit *u = bw_units_si_unit (spec->kind);
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                       "%s: %g %s is outside the valid range (%s %g to %g %s)", spec->label, value,
+                       u->symbol, spec->min_exclusive ? "above" : "from", spec->min, spec->max,
+                       u->symbol);
+          return FALSE;
+        }
+      return TRUE;
+    default:
+      g_assert_not_reached ();
+      return FALSE;
+    }
+}

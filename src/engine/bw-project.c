@@ -1,0 +1,517 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-project.c: the plant model: design basis, trains, process units and load cases. */
+#include "config.h"
+
+#include "engine/bw-project.h"
+
+#include <math.h>
+#include <string.h>
+
+#include "engine/bw-error.h"
+#include "engine/bw-water.h"
+
+BwProject *
+bw_project_new (void)
+{
+  BwProject *p = g_new0 (BwProject, 1);
+
+  p->trains = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_train_free);
+  p->cases = g_array_new (FALSE, TRUE, sizeof (BwLoadCase));
+  p->foreign = g_ptr_array_new_with_free_func (g_free);
+  p->basis.temperature_K[BW_TEMP_COLDEST] = 273.15 + 5.0;
+  p->basis.temperature_K[BW_TEMP_WARMEST] = 273.15 + 25.0;
+  p->basis.ph = 7.0;
+  return p;
+}
+
+void
+bw_project_free (BwProject *p)
+{
+  if (p == NULL)
+    return;
+  g_free (p->name);
+  g_free (p->preparer);
+  g_free (p->revision);
+  g_free (p->date);
+  g_free (p->description);
+  g_free (p->criteria);
+  g_ptr_array_unref (p->trains);
+  g_array_unref (p->cases);
+  g_ptr_array_unref (p->foreign);
+  g_free (p);
+}
+
+static GPtrArray *
+copy_strings (GPtrArray *a)
+{
+  GPtrArray *c = g_ptr_array_new_with_free_func (g_free);
+  for (guint i = 0; i < a->len; i++)
+    g_ptr_array_add (c, g_strdup (g_ptr_array_index (a, i)));
+  return c;
+}
+
+BwProject *
+bw_project_copy (const BwProject *p)
+{
+  BwProject *c;
+
+  g_return_val_if_fail (p != NULL, NULL);
+  c = bw_project_new ();
+  c->name = g_strdup (p->name);
+  c->preparer = g_strdup (p->preparer);
+  c->revision = g_strdup (p->revision);
+  c->date = g_strdup (p->date);
+  c->description = g_strdup (p->description);
+  c->criteria = g_strdup (p->criteria);
+  c->basis = p->basis;
+  for (guint i = 0; i < p->trains->len; i++)
+    {
+      const BwTrain *t = g_ptr_array_index (p->trains, i);
+      BwTrain *tc = bw_train_new (t->id, t->name);
+      for (guint k = 0; k < t->units->len; k++)
+        g_ptr_array_add (tc->units, bw_process_unit_copy (g_ptr_array_index (t->units, k)));
+      g_ptr_array_add (c->trains, tc);
+    }
+  g_array_append_vals (c->cases, p->cases->data, p->cases->len);
+  g_ptr_array_unref (c->foreign);
+  c->foreign = copy_strings (p->foreign);
+  return c;
+}
+
+BwTrain *
+bw_train_new (const char *id, const char *name)
+{
+  BwTrain *t = g_new0 (BwTrain, 1);
+
+  t->id = g_strdup (id);
+  t->name = g_strdup (name);
+  t->units = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_process_unit_free);
+  return t;
+}
+
+void
+bw_train_free (BwTrain *t)
+{
+  if (t == NULL)
+    return;
+  g_free (t->id);
+  g_free (t->name);
+  g_ptr_array_unref (t->units);
+  g_free (t);
+}
+
+BwProcessUnit *
+bw_process_unit_new (BwProcessType type, const char *id, const char *name)
+{
+  BwProcessUnit *u;
+  const BwParamSpec *specs;
+  guint n;
+
+  g_return_val_if_fail (type < BW_N_PROCESS_TYPES, NULL);
+  u = g_new0 (BwProcessUnit, 1);
+  u->type = type;
+  u->id = g_strdup (id);
+  u->name = g_strdup (name ? name : bw_process_type_label (type));
+  u->n_parallel = 1;
+  u->stages = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_process_unit_free);
+  u->foreign = g_ptr_array_new_with_free_func (g_free);
+  specs = bw_params_of (type, &n);
+  for (guint i = 0; i < n; i++)
+    u->values[i] = specs[i].def;
+  return u;
+}
+
+void
+bw_process_unit_free (BwProcessUnit *u)
+{
+  if (u == NULL)
+    return;
+  g_free (u->id);
+  g_free (u->name);
+  g_ptr_array_unref (u->stages);
+  g_ptr_array_unref (u->foreign);
+  g_free (u);
+}
+
+BwProcessUnit *
+bw_process_unit_copy (const BwProcessUnit *u)
+{
+  BwProcessUnit *c;
+
+  g_return_val_if_fail (u != NULL, NULL);
+  c = bw_process_unit_new (u->type, u->id, u->name);
+  c->n_parallel = u->n_parallel;
+  c->n_standby = u->n_standby;
+  memcpy (c->values, u->values, sizeof c->values);
+  for (guint i = 0; i < u->stages->len; i++)
+    g_ptr_array_add (c->stages, bw_process_unit_copy (g_ptr_array_index (u->stages, i)));
+  g_ptr_array_unref (c->foreign);
+  c->foreign = copy_strings (u->foreign);
+  return c;
+}
+
+gboolean
+bw_process_unit_set (BwProcessUnit *u, const char *param_id, double value, GError **error)
+{
+  const int i = bw_param_index (u->type, param_id);
+
+  g_return_val_if_fail (u != NULL, FALSE);
+  if (i < 0)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "%s: a %s has no parameter of that name", param_id,
+                   bw_process_type_label (u->type));
+      return FALSE;
+    }
+  if (!bw_param_check (&bw_params_of (u->type, NULL)[i], value, error))
+    return FALSE;
+  u->values[i] = value;
+  return TRUE;
+}
+
+double
+bw_process_unit_get (const BwProcessUnit *u, const char *param_id)
+{
+  const int i = bw_param_index (u->type, param_id);
+
+  g_return_val_if_fail (i >= 0, 0.0);
+  return u->values[i];
+}
+
+double
+bw_project_unit_flow (const BwProject *p, const BwProcessUnit *u, BwFlowKind flow,
+                      BwServiceState service)
+{
+  guint running;
+  double train_flow;
+
+  g_return_val_if_fail (p != NULL && u != NULL && flow < BW_N_FLOW_KINDS, 0.0);
+  train_flow = p->basis.flow_m3_s[flow] / MAX (1u, p->trains->len);
+  running = u->n_parallel;
+  if (service == BW_SERVICE_FIRM && u->n_standby < u->n_parallel)
+    running -= u->n_standby;
+  return train_flow / MAX (1u, running);
+}
+
+static gboolean
+any_standby (const BwProject *p)
+{
+  for (guint i = 0; i < p->trains->len; i++)
+    {
+      const BwTrain *t = g_ptr_array_index (p->trains, i);
+      for (guint k = 0; k < t->units->len; k++)
+        if (((BwProcessUnit *) g_ptr_array_index (t->units, k))->n_standby > 0)
+          return TRUE;
+    }
+  return FALSE;
+}
+
+void
+bw_project_generate_cases (BwProject *p)
+{
+  const int services = any_standby (p) ? BW_N_SERVICE_STATES : 1;
+
+  g_return_if_fail (p != NULL);
+  g_array_set_size (p->cases, 0);
+  for (int f = 0; f < BW_N_FLOW_KINDS; f++)
+    {
+      if (!((p->basis.flows_given >> f) & 1))
+        continue;
+      for (int t = 0; t < BW_N_TEMP_KINDS; t++)
+        for (int s = 0; s < services; s++)
+          {
+            BwLoadCase c = { (BwFlowKind) f, (BwTempKind) t, (BwServiceState) s, TRUE };
+            g_array_append_val (p->cases, c);
+          }
+    }
+}
+
+char *
+bw_load_case_label (const BwLoadCase *c)
+{
+  return g_strdup_printf ("%s, %s, %s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
+                          c->service == BW_SERVICE_FIRM ? "firm capacity" : "all in service");
+}
+
+char *
+bw_load_case_id (const BwLoadCase *c)
+{
+  return g_strdup_printf ("%s/%s/%s", bw_flow_kind_name (c->flow), bw_temp_kind_name (c->temp),
+                          bw_service_state_name (c->service));
+}
+
+gboolean
+bw_load_case_parse_id (const char *id, BwLoadCase *out)
+{
+  g_auto (GStrv) parts = NULL;
+
+  if (id == NULL)
+    return FALSE;
+  parts = g_strsplit (id, "/", -1);
+  if (g_strv_length (parts) != 3)
+    return FALSE;
+  out->enabled = TRUE;
+  return bw_flow_kind_from_name (parts[0], &out->flow) && bw_temp_kind_from_name (parts[1], &out->temp)
+         && bw_service_state_from_name (parts[2], &out->service);
+}
+
+static gboolean
+check_unit (const BwProcessUnit *u, GHashTable *ids, gboolean is_stage, GError **error)
+{
+  const BwParamSpec *specs;
+  guint n;
+
+  if (u->id == NULL || u->id[0] == '\0')
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "unit id: a unit has no id");
+      return FALSE;
+    }
+  if (!g_hash_table_add (ids, u->id))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "unit id: '%s' is used twice", u->id);
+      return FALSE;
+    }
+  if (bw_process_type_is_stage (u->type) != is_stage)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "%s: a %s cannot stand %s", u->id, bw_process_type_label (u->type),
+                   is_stage ? "as a flocculator stage" : "on its own in a train");
+      return FALSE;
+    }
+  if (u->n_parallel < 1 || u->n_parallel > 100)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                   "%s: units in parallel must be from 1 to 100 (got %u)", u->id, u->n_parallel);
+      return FALSE;
+    }
+  if (u->n_standby >= u->n_parallel)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                   "%s: %u standby of %u in parallel leaves none in service", u->id, u->n_standby,
+                   u->n_parallel);
+      return FALSE;
+    }
+  specs = bw_params_of (u->type, &n);
+  for (guint i = 0; i < n; i++)
+    {
+      g_autoptr (GError) local = NULL;
+      if (!bw_param_check (&specs[i], u->values[i], &local))
+        {
+          g_set_error (error, BW_ENGINE_ERROR, local->code, "%s: %s", u->id, local->message);
+          return FALSE;
+        }
+    }
+  if (u->type == BW_PROCESS_FLOCCULATOR && u->stages->len == 0)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "%s: a flocculator needs at least one stage", u->id);
+      return FALSE;
+    }
+  if (u->type != BW_PROCESS_FLOCCULATOR && u->stages->len > 0)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "%s: only a flocculator has stages", u->id);
+      return FALSE;
+    }
+  for (guint i = 0; i < u->stages->len; i++)
+    if (!check_unit (g_ptr_array_index (u->stages, i), ids, TRUE, error))
+      return FALSE;
+  return TRUE;
+}
+
+gboolean
+bw_project_validate (const BwProject *p, GError **error)
+{
+  g_autoptr (GHashTable) ids = g_hash_table_new (g_str_hash, g_str_equal);
+  g_autoptr (GHashTable) train_ids = g_hash_table_new (g_str_hash, g_str_equal);
+  const BwDesignBasis *b;
+  double last = 0.0;
+  const BwFlowKind order[] = { BW_FLOW_MINIMUM, BW_FLOW_AVERAGE_DAY, BW_FLOW_MAXIMUM_DAY,
+                               BW_FLOW_PEAK_HOUR };
+
+  g_return_val_if_fail (p != NULL, FALSE);
+  b = &p->basis;
+  if (!((b->flows_given >> BW_FLOW_MAXIMUM_DAY) & 1))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "maximum-day flow: the design basis needs it");
+      return FALSE;
+    }
+  for (int f = 0; f < BW_N_FLOW_KINDS; f++)
+    if ((b->flows_given >> f) & 1)
+      {
+        g_autofree char *field = g_strdup_printf ("%s flow", bw_flow_kind_label ((BwFlowKind) f));
+        if (!bw_check_positive (b->flow_m3_s[f], field, error)
+            || !bw_check_range (b->flow_m3_s[f], 0, 1000, field, "m³/s", error))
+          return FALSE;
+      }
+  for (guint i = 0; i < G_N_ELEMENTS (order); i++)
+    if ((b->flows_given >> order[i]) & 1)
+      {
+        if (b->flow_m3_s[order[i]] < last)
+          {
+            g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                         "%s flow: it is below a flow listed before it (minimum <= average day <= "
+                         "maximum day <= peak hour)", bw_flow_kind_label (order[i]));
+            return FALSE;
+          }
+        last = b->flow_m3_s[order[i]];
+      }
+  for (int t = 0; t < BW_N_TEMP_KINDS; t++)
+    {
+      g_autofree char *field = g_strdup_printf ("%s temperature", bw_temp_kind_name ((BwTempKind) t));
+      if (!bw_check_finite (b->temperature_K[t], field, error))
+        return FALSE;
+      if (b->temperature_K[t] < BW_WATER_T_MIN_K - 1e-9 || b->temperature_K[t] > BW_WATER_T_MAX_K + 1e-9)
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                       "%s: %.2f °C is outside 0 to 40 °C", field, b->temperature_K[t] - 273.15);
+          return FALSE;
+        }
+    }
+  if (b->temperature_K[BW_TEMP_COLDEST] > b->temperature_K[BW_TEMP_WARMEST])
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                   "coldest temperature: it is above the warmest");
+      return FALSE;
+    }
+  if (!bw_check_nonnegative (b->turbidity_NTU, "raw-water turbidity", error)
+      || !bw_check_nonnegative (b->alkalinity_kg_m3, "raw-water alkalinity", error)
+      || !bw_check_range (b->ph, 0, 14, "raw-water pH", "", error))
+    return FALSE;
+  if (p->trains->len == 0)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "trains: the plant has none");
+      return FALSE;
+    }
+  for (guint i = 0; i < p->trains->len; i++)
+    {
+      const BwTrain *t = g_ptr_array_index (p->trains, i);
+      if (t->id == NULL || !g_hash_table_add (train_ids, t->id))
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "train id: '%s' is missing or used twice", t->id ? t->id : "");
+          return FALSE;
+        }
+      for (guint k = 0; k < t->units->len; k++)
+        if (!check_unit (g_ptr_array_index (t->units, k), ids, FALSE, error))
+          return FALSE;
+    }
+  for (guint i = 0; i < p->cases->len; i++)
+    {
+      const BwLoadCase *c = &g_array_index (p->cases, BwLoadCase, i);
+      if (!((b->flows_given >> c->flow) & 1))
+        {
+          g_autofree char *label = bw_load_case_label (c);
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "load case %s: the design basis has no %s flow", label,
+                       bw_flow_kind_label (c->flow));
+          return FALSE;
+        }
+    }
+  return TRUE;
+}
+
+static BwProcessUnit *
+find_in (GPtrArray *units, const char *id)
+{
+  for (guint k = 0; k < units->len; k++)
+    {
+      BwProcessUnit *u = g_ptr_array_index (units, k), *s;
+      if (g_strcmp0 (u->id, id) == 0)
+        return u;
+      if ((s = find_in (u->stages, id)))
+        return s;
+    }
+  return NULL;
+}
+
+BwProcessUnit *
+bw_project_find_unit (const BwProject *p, const char *id, BwTrain **train)
+{
+  g_return_val_if_fail (p != NULL, NULL);
+  for (guint i = 0; i < p->trains->len; i++)
+    {
+      BwTrain *t = g_ptr_array_index (p->trains, i);
+      BwProcessUnit *u = find_in (t->units, id);
+      if (u)
+        {
+          if (train)
+            *train = t;
+          return u;
+        }
+    }
+  return NULL;
+}
+
+static gboolean
+strings_equal (GPtrArray *a, GPtrArray *b)
+{
+  if (a->len != b->len)
+    return FALSE;
+  for (guint i = 0; i < a->len; i++)
+    if (g_strcmp0 (g_ptr_array_index (a, i), g_ptr_array_index (b, i)) != 0)
+      return FALSE;
+  return TRUE;
+}
+
+static gboolean
+unit_equal (const BwProcessUnit *a, const BwProcessUnit *b)
+{
+  guint n;
+
+  bw_params_of (a->type, &n);
+  if (a->type != b->type || g_strcmp0 (a->id, b->id) || g_strcmp0 (a->name, b->name)
+      || a->n_parallel != b->n_parallel || a->n_standby != b->n_standby
+      || a->stages->len != b->stages->len || !strings_equal (a->foreign, b->foreign))
+    return FALSE;
+  for (guint i = 0; i < n; i++)
+    if (a->values[i] != b->values[i])
+      return FALSE;
+  for (guint i = 0; i < a->stages->len; i++)
+    if (!unit_equal (g_ptr_array_index (a->stages, i), g_ptr_array_index (b->stages, i)))
+      return FALSE;
+  return TRUE;
+}
+
+gboolean
+bw_project_equal (const BwProject *a, const BwProject *b)
+{
+  const BwDesignBasis *x = &a->basis, *y = &b->basis;
+
+  if (g_strcmp0 (a->name, b->name) || g_strcmp0 (a->preparer, b->preparer)
+      || g_strcmp0 (a->revision, b->revision) || g_strcmp0 (a->date, b->date)
+      || g_strcmp0 (a->description, b->description) || g_strcmp0 (a->criteria, b->criteria))
+    return FALSE;
+  if (x->flows_given != y->flows_given || x->turbidity_NTU != y->turbidity_NTU
+      || x->alkalinity_kg_m3 != y->alkalinity_kg_m3 || x->ph != y->ph)
+    return FALSE;
+  for (int f = 0; f < BW_N_FLOW_KINDS; f++)
+    if (((x->flows_given >> f) & 1) && x->flow_m3_s[f] != y->flow_m3_s[f])
+      return FALSE;
+  for (int t = 0; t < BW_N_TEMP_KINDS; t++)
+    if (x->temperature_K[t] != y->temperature_K[t])
+      return FALSE;
+  if (a->trains->len != b->trains->len || a->cases->len != b->cases->len
+      || !strings_equal (a->foreign, b->foreign))
+    return FALSE;
+  for (guint i = 0; i < a->cases->len; i++)
+    {
+      const BwLoadCase *c = &g_array_index (a->cases, BwLoadCase, i);
+      const BwLoadCase *d = &g_array_index (b->cases, BwLoadCase, i);
+      if (c->flow != d->flow || c->temp != d->temp || c->service != d->service
+          || c->enabled != d->enabled)
+        return FALSE;
+    }
+  for (guint i = 0; i < a->trains->len; i++)
+    {
+      const BwTrain *t = g_ptr_array_index (a->trains, i), *u = g_ptr_array_index (b->trains, i);
+      if (g_strcmp0 (t->id, u->id) || g_strcmp0 (t->name, u->name) || t->units->len != u->units->len)
+        return FALSE;
+      for (guint k = 0; k < t->units->len; k++)
+        if (!unit_equal (g_ptr_array_index (t->units, k), g_ptr_array_index (u->units, k)))
+          return FALSE;
+    }
+  return TRUE;
+}

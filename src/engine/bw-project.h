@@ -1,0 +1,109 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-project.h: a plant: design basis, trains of process units, and load cases. */
+#pragma once
+
+#include <glib.h>
+
+#include "engine/bw-criteria.h"
+#include "engine/bw-params.h"
+
+G_BEGIN_DECLS
+
+typedef struct _BwProcessUnit BwProcessUnit;
+
+/* One process unit of a train (or one stage of a flocculator). */
+struct _BwProcessUnit
+{
+  char *id;                      /* unique in the project: "rm-1", "floc-1/stage-2" for stages */
+  char *name;                    /* "Rapid mix" */
+  BwProcessType type;
+  guint n_parallel;              /* identical units side by side (1 for stages) */
+  guint n_standby;               /* of those, how many may be out of service (firm capacity) */
+  double values[BW_MAX_PARAMS];  /* indexed like bw_params_of (type) */
+  GPtrArray *stages;             /* BwProcessUnit*, a flocculator's stages in flow order */
+  GPtrArray *foreign;            /* char*: XML of unknown elements kept from a newer file */
+};
+
+typedef struct
+{
+  char *id;
+  char *name;
+  GPtrArray *units; /* BwProcessUnit*, in flow order */
+} BwTrain;
+
+typedef struct
+{
+  double flow_m3_s[BW_N_FLOW_KINDS]; /* plant flows */
+  guint flows_given;                 /* 1 << BwFlowKind for those set */
+  double temperature_K[BW_N_TEMP_KINDS];
+  double turbidity_NTU;
+  double alkalinity_kg_m3;           /* as CaCO3 */
+  double ph;
+} BwDesignBasis;
+
+typedef struct
+{
+  BwFlowKind flow;
+  BwTempKind temp;
+  BwServiceState service;
+  gboolean enabled;
+} BwLoadCase;
+
+typedef struct
+{
+  char *name;
+  char *preparer;
+  char *revision;
+  char *date;        /* as the preparer writes it; not parsed */
+  char *description;
+  char *criteria;    /* criteria-set id (or path) the project is checked against */
+  BwDesignBasis basis;
+  GPtrArray *trains; /* BwTrain* */
+  GArray *cases;     /* BwLoadCase */
+  GPtrArray *foreign;/* char*: XML of unknown top-level elements kept from a newer file */
+} BwProject;
+
+BwProject *bw_project_new (void);
+void bw_project_free (BwProject *p);
+BwProject *bw_project_copy (const BwProject *p);
+
+BwTrain *bw_train_new (const char *id, const char *name);
+void bw_train_free (BwTrain *t);
+
+/* A unit of TYPE with every parameter at its default. */
+BwProcessUnit *bw_process_unit_new (BwProcessType type, const char *id, const char *name);
+void bw_process_unit_free (BwProcessUnit *u);
+BwProcessUnit *bw_process_unit_copy (const BwProcessUnit *u);
+
+/* Parameter access by id; set checks the value (the error names the parameter). */
+gboolean bw_process_unit_set (BwProcessUnit *u, const char *param_id, double value, GError **error);
+double bw_process_unit_get (const BwProcessUnit *u, const char *param_id);
+
+/* Plant flow through one unit of U in SERVICE: the train's share divided over the units in
+ * service. */
+double bw_project_unit_flow (const BwProject *p, const BwProcessUnit *u, BwFlowKind flow,
+                             BwServiceState service);
+
+/* Replaces the load cases with every combination of the given flows, both temperatures, and
+ * (when any unit has a standby) both service states. */
+void bw_project_generate_cases (BwProject *p);
+
+/* "maximum-day, coldest, firm" and its id "maximum-day/coldest/firm". */
+char *bw_load_case_label (const BwLoadCase *c);
+char *bw_load_case_id (const BwLoadCase *c);
+gboolean bw_load_case_parse_id (const char *id, BwLoadCase *out);
+
+/* Checks everything a file or an edit can get wrong: unique ids, standby < parallel, every
+ * parameter in range, flows ordered and positive, temperatures in 0-40 degC and ordered. */
+gboolean bw_project_validate (const BwProject *p, GError **error);
+
+/* Finds a unit (or stage) by id; NULL if none. */
+BwProcessUnit *bw_project_find_unit (const BwProject *p, const char *id, BwTrain **train);
+
+/* TRUE when A and B hold the same model (every field, value for value). */
+gboolean bw_project_equal (const BwProject *a, const BwProject *b);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (BwProject, bw_project_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (BwProcessUnit, bw_process_unit_free)
+
+G_END_DECLS
