@@ -8,6 +8,28 @@
 
 #include "cli/bw-cli.h"
 
+/* Set when a value about to be printed is not finite. The document is then withheld: the
+ * contract allows no NaN, infinity or null in place of a number. */
+static gboolean output_failed;
+
+gboolean
+bw_cli_output_failed (void)
+{
+  return output_failed;
+}
+
+static void
+refuse_output (void)
+{
+  static gboolean reported;
+
+  if (!reported)
+    fprintf (stderr, "basinwright-cli: a result is not a finite number: the inputs lie beyond the "
+                     "models' range\n");
+  reported = TRUE;
+  output_failed = TRUE;
+}
+
 struct _BwJson
 {
   GString *s;
@@ -74,6 +96,7 @@ json_append_number (GString *s, double value)
    * than an invalid token. */
   if (!isfinite (value))
     {
+      output_failed = TRUE;
       g_string_append (s, "null");
       return;
     }
@@ -145,7 +168,10 @@ bw_json_print_free (BwJson *j)
 {
   g_assert (j->first->len == 1);
   g_string_append (j->s, "}\n");
-  fputs (j->s->str, stdout);
+  if (output_failed)
+    refuse_output ();
+  else
+    fputs (j->s->str, stdout);
   g_string_free (j->s, TRUE);
   g_array_free (j->first, TRUE);
   g_free (j);
@@ -193,6 +219,8 @@ void
 bw_table_quantity (BwTable *t, const char *label, double value_si, BwQuantityKind kind,
                    BwUnitSystem system)
 {
+  if (!isfinite (value_si))
+    output_failed = TRUE;
   g_ptr_array_add (t->labels, g_strdup (label));
   g_ptr_array_add (t->values, bw_units_format (value_si, kind, system));
 }
@@ -200,6 +228,8 @@ bw_table_quantity (BwTable *t, const char *label, double value_si, BwQuantityKin
 void
 bw_table_number (BwTable *t, const char *label, double value, int sig)
 {
+  if (!isfinite (value))
+    output_failed = TRUE;
   g_ptr_array_add (t->labels, g_strdup (label));
   g_ptr_array_add (t->values, bw_format_number (value, sig));
 }
@@ -211,7 +241,13 @@ bw_table_print_free (BwTable *t)
 
   for (guint i = 0; i < t->labels->len; i++)
     width = MAX (width, g_utf8_strlen (g_ptr_array_index (t->labels, i), -1));
-  if (t->title)
+  if (output_failed)
+    {
+      refuse_output ();
+      g_ptr_array_set_size (t->labels, 0);
+      g_ptr_array_set_size (t->values, 0);
+    }
+  else if (t->title)
     printf ("%s\n", t->title);
   for (guint i = 0; i < t->labels->len; i++)
     {

@@ -75,7 +75,7 @@ main (int argc, char **argv)
         code = commands[i]->run (&args);
         bw_cli_args_clear (&args);
         fflush (stdout);
-        return code;
+        return bw_cli_output_failed () ? BW_CLI_EXIT_USAGE : code;
       }
   return bw_cli_usage_error (NULL, "unknown command '%s' (see basinwright-cli --help)", argv[1]);
 }

@@ -111,6 +111,10 @@ void bw_table_text (BwTable *t, const char *label, const char *text);
 void bw_table_number (BwTable *t, const char *label, double value, int sig);
 void bw_table_print_free (BwTable *t);
 
+/* TRUE once a run tried to print a value that is not finite; the output was withheld and main
+ * exits with BW_CLI_EXIT_USAGE. */
+gboolean bw_cli_output_failed (void);
+
 /* TEXT padded with spaces to WIDTH characters (not bytes: "m³" is two characters). */
 char *bw_cli_pad (const char *text, int width);
 

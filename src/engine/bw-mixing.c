@@ -17,7 +17,7 @@
  *   often quoted. Give the maker's number as a power number when you have it.
  * - 45 degree pitched four-blade turbine: 1.27 (from memory: McCabe, Smith & Harriott, "Unit
  *   Operations of Chemical Engineering", table of power numbers, baffled tank).
- * - Hydrofoil: 0.30 (REFERENCES.md, tagged seen; Davis 2010 p. 6-35 gives 0.31 for the axial-flow
+ * - Hydrofoil: 0.30 (docs/references.md, tagged seen; Davis 2010 p. 6-35 gives 0.31 for the axial-flow
  *   impeller of its example, a maker's figure).
  */
 static const struct

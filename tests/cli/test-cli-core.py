@@ -28,7 +28,7 @@ def water_keys():
             "kinematic_viscosity_m2_s", "relative_permittivity"}
     assert want <= d.keys(), d.keys()
     assert abs(d["temperature_C"] - 20) < 1e-12
-    # IAPWS-95 998.2072 kg/m3 and IAPWS 2008 1.00160 mPa s at 20 degC (REFERENCES.md table).
+    # IAPWS-95 998.2072 kg/m3 and IAPWS 2008 1.00160 mPa s at 20 degC (docs/references.md table).
     assert abs(d["density_kg_m3"] - 998.2072) < 0.05, d
     assert abs(d["dynamic_viscosity_Pa_s"] - 1.00160e-3) < 0.005e-3, d
     assert abs(d["kinematic_viscosity_m2_s"] - d["dynamic_viscosity_Pa_s"] / d["density_kg_m3"]) < 1e-15
@@ -58,7 +58,7 @@ def settle_keys():
     assert {"settling_velocity_m_s", "reynolds", "drag_coefficient", "regime"} <= d.keys()
     assert d["regime"] in ("stokes", "transitional", "newton")
     # Davis (2010) Example 10-1 conditions give about 0.027 m/s with the Davis correlation (seen,
-    # REFERENCES.md); the engine's own water at 22 degC differs slightly from the rounded 1000/0.955.
+    # docs/references.md); the engine's own water at 22 degC differs slightly from the rounded 1000/0.955.
     dv = run_json("settle", "--diameter", "0.2mm", "--sg", "2.65", "--temp", "22", "--drag", "davis")
     assert abs(dv["settling_velocity_m_s"] - 0.02726) / 0.02726 < 0.02, dv
     assert dv["regime"] == "transitional"
@@ -66,7 +66,7 @@ tap.check("settle --json: contract keys; Davis Example 10-1 scale", settle_keys)
 
 def settle_stokes():
     # 10 um silt, SG 2.65, 20 degC: Stokes' law by hand (derived): g (rho_p - rho) d^2 / (18 mu)
-    # with rho 998.2072, mu 1.0016e-3 (REFERENCES.md): 9.80665*1.65*998.2072*1e-10/(18*1.0016e-3)
+    # with rho 998.2072, mu 1.0016e-3 (docs/references.md): 9.80665*1.65*998.2072*1e-10/(18*1.0016e-3)
     d = run_json("settle", "--diameter", "10um", "--sg", "2.65", "--temp", "20")
     want = 9.80665 * 1.65 * 998.2072 * 1e-10 / (18 * 1.0016e-3)
     assert abs(d["settling_velocity_m_s"] - want) / want < 2e-3, (d, want)
@@ -114,6 +114,15 @@ bad = [
     (["settle", "--diameter", "50um", "--sg", "2.65", "--temp", "20", "--drag", "magic"], "--drag"),
     (["settle", "--diameter", "2m", "--sg", "2.65", "--temp", "20"], "--diameter"),
     (["settle", "--diameter", "\udcff", "--sg", "2.65", "--temp", "20"], "UTF-8"),
+]
+# Results that overflow are refused, never printed as null or inf (the contract: no NaN/inf).
+bad += [
+    (["gvalue", "--power", "1e300", "--volume", "1", "--temp", "12", "--time", "1e300", "--json"],
+     "not a finite number"),
+    (["gvalue", "--power", "1e300", "--volume", "1", "--temp", "12", "--time", "1e300"],
+     "not a finite number"),
+    (["impeller", "--kind", "rushton", "--diameter", "0.4", "--speed", "100", "--volume", "1e300",
+      "--flow", "1e-300", "--temp", "10", "--json"], "not a finite number"),
 ]
 for args, needle in bad:
     try:

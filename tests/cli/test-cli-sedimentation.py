@@ -9,7 +9,7 @@ from clitest import Tap, expect_usage_error, run, run_json
 
 tap = Tap()
 
-# Exact conversions (NIST SP 811; REFERENCES.md): 1 ft = 0.3048 m, 1 gal = 3.785411784 L.
+# Exact conversions (NIST SP 811; docs/references.md): 1 ft = 0.3048 m, 1 gal = 3.785411784 L.
 FT = 0.3048
 GAL = 3.785411784e-3
 DAY = 86400.0
@@ -69,7 +69,7 @@ def basin_davis_10_4():
     # Davis (2010) Example 10-4 (seen): 0.5 m3/s on six basins 4 m x 55.5 m, SWD 3.0 m, 10 degC,
     # designed at 32.5 m3/(d m2) (the built 222 m2 gives 32.43, 0.3 % under); L/W printed 13.8.
     # Derived (hand): Rh 1.2 m, vh 6.9444e-3 m/s, Fr 4.0980e-6, Re 6379.4 with nu(10 degC) =
-    # 1.3062886e-6 m2/s (REFERENCES.md water table).
+    # 1.3062886e-6 m2/s (docs/references.md water table).
     d = run_json("basin", "--flow", "0.5", "--basins", "6", "--length", "55.5", "--width", "4",
                  "--depth", "3", "--temp", "10")
     close(d["overflow_rate_m_s"], per_day(32.5), 3e-3, "overflow vs Davis")
@@ -101,7 +101,7 @@ def basin_us_units():
     q = 1e7 * GAL / DAY
     close(d["surface_area_m2"], 1e4 * FT ** 2, 1e-11, "area")
     close(d["overflow_rate_m_s"], 1000 * GAL / DAY / FT ** 2, 1e-9, "overflow")
-    close(d["overflow_rate_m_s"], per_day(40.7458), 2e-6, "overflow vs REFERENCES 0.0407458 m/d")
+    close(d["overflow_rate_m_s"], per_day(40.7458), 2e-6, "overflow vs docs/references.md 0.0407458 m/d")
     close(d["detention_s"], 120000 * FT ** 3 / q, 1e-9, "detention")
     close(d["detention_s"], 0.0897662 * DAY, 1e-6, "detention")
     close(d["horizontal_velocity_m_s"], q / (600 * FT ** 2), 1e-9, "vh")
@@ -151,7 +151,7 @@ tap.check("basin: scour check with --particle-diameter", basin_scour)
 def scour_values():
     d = run_json("scour", "--diameter", "100um", "--sg", "1.25")
     assert "scour_velocity_m_s" in d and "scour_margin" not in d, d
-    # 0.0626 m/s at g 9.81 (REFERENCES.md: from memory, Metcalf & Eddy); the CLI uses 9.80665,
+    # 0.0626 m/s at g 9.81 (docs/references.md: from memory, Metcalf & Eddy); the CLI uses 9.80665,
     # 0.017 % lower: derived 0.0626311424.
     close(d["scour_velocity_m_s"], 0.0626, 1e-3, "memory value")
     close(d["scour_velocity_m_s"], 0.0626311424, 1e-9, "derived")
@@ -221,12 +221,12 @@ def removal_values():
     close(d["removal_fraction"], 0.5, 1e-11, "Camp 0.5")         # Camp (1946): vs/v0
     d = run_json("removal", "--settling-velocity", "2mm/s", "--overflow-rate", "3.6m/h")
     assert d["removal_fraction"] == 1, d
-    # Hazen (1904), n = 3, vs/v0 = 1: 1 - (4/3)^-3 = 0.578125 (derived; REFERENCES.md 0.5781).
+    # Hazen (1904), n = 3, vs/v0 = 1: 1 - (4/3)^-3 = 0.578125 (derived; docs/references.md 0.5781).
     d = run_json("removal", "--settling-velocity", "1mm/s", "--overflow-rate", "3.6m/h",
                  "--hazen-n", "3")
     close(d["removal_fraction"], 0.578125, 1e-11, "Hazen n 3")
     assert d["model"] == "hazen" and d["hazen_n"] == 3 and d["ideal_removal_fraction"] == 1, d
-    # US units: 1 gpm/ft2 = 2.44475 m/h (REFERENCES.md), so 0.5 gpm/ft2 against 1.222375 m/h.
+    # US units: 1 gpm/ft2 = 2.44475 m/h (docs/references.md), so 0.5 gpm/ft2 against 1.222375 m/h.
     d = run_json("removal", "--settling-velocity", "0.611 m/h", "--overflow-rate", "0.5gpm/ft2")
     close(d["removal_fraction"], 0.611 / 1.222375, 1e-5, "gpm/ft2")
 tap.check("removal: Camp and Hazen", removal_values)

@@ -313,7 +313,7 @@ END_TEST
 START_TEST (test_floc_baffled_around_the_end)
 {
   /* Derived by hand: 10 passes 1.0 m apart, 2.0 m deep, 10 m long, Q = 0.3 m3/s, K = 3.2,
-   * n = 0.013, 20 degC water (998.2072 kg/m3, 1.00160 mPa s, REFERENCES.md), g = 9.80665:
+   * n = 0.013, 20 degC water (998.2072 kg/m3, 1.00160 mPa s, docs/references.md), g = 9.80665:
    * v = 0.15 m/s, R = 2 / 5 = 0.4 m, path 100 m, h_f = 100 (0.013 x 0.15)^2 / 0.4^(4/3) =
    * 1.290197e-3 m, h_t = 9 x 3.2 x 0.0225 / 19.6133 = 0.03303881 m, t = 666.67 s,
    * G = sqrt (g h / (nu t)) = 22.43364 1/s, Gt = 14955.76. */

@@ -8,7 +8,7 @@
 #include "engine/bw-error.h"
 #include "engine/bw-flocmodel.h"
 
-/* The papers' closed form for m equal compartments, written out literally (REFERENCES.md, from
+/* The papers' closed form for m equal compartments, written out literally (docs/references.md, from
  * memory: Argaman & Kaufman 1970; Argaman 1971), independent of the engine's rearranged form:
  *   n0/nm = (1 + KA G T/m)^m / [1 + KB G^2 (T/m) sum_{i=0}^{m-1} (1 + KA G T/m)^i] */
 static double
@@ -45,7 +45,7 @@ defaults (void)
 
 START_TEST (test_flocmodel_reference_value)
 {
-  /* REFERENCES.md (derived): T = 1200 s, KA 4.5e-5, KB 1e-7 s, G = 50 1/s, m = 3 ->
+  /* docs/references.md (derived): T = 1200 s, KA 4.5e-5, KB 1e-7 s, G = 50 1/s, m = 3 ->
    * n0/n = 4.1545, remaining 0.2407. Our own hand evaluation gives 4.154452 (x = 0.9,
    * 1.9^3 = 6.859, denominator 1 + 0.1 x 6.51 = 1.651). */
   BwFlocKinetics k = defaults ();
@@ -139,7 +139,7 @@ END_TEST
 
 START_TEST (test_flocmodel_optimum_m1_by_scan)
 {
-  /* REFERENCES.md (derived): for m = 1 the optimum G is "near 70 1/s". Scanning at 0.01 1/s finds
+  /* docs/references.md (derived): for m = 1 the optimum G is "near 70 1/s". Scanning at 0.01 1/s finds
    * it at 74.63 1/s; setting d(n0/n)/dG = 0 gives KA KB T G^2 + 2 KB G - KA = 0, so
    * G* = (-KB + sqrt (KB^2 + KA^2 KB T)) / (KA KB T) = 74.628 1/s (our derivation). */
   const BwFlocKinetics k = defaults ();

@@ -48,7 +48,7 @@ START_TEST (test_mixing_davis_6_7_speed)
   /* The book's number, from the 450 W motor power: 1.976 rev/s (seen; +-0.0005 = its digits). */
   ck_assert (bw_impeller_speed_for_power (&imp, TRUE, &w, 450.0, &n_motor, &error));
   ck_assert_double_eq_tol (n_motor, 1.976, 0.0005);
-  /* What the engine sizes from, the water power 363.6 W: 1.84 rev/s (REFERENCES.md, derived by
+  /* What the engine sizes from, the water power 363.6 W: 1.84 rev/s (docs/references.md, derived by
    * hand from the same Eq. 6-17; +-0.005 = its digits). */
   ck_assert (bw_impeller_speed_for_power (&imp, TRUE, &w, 363.6, &n_water, &error));
   ck_assert_double_eq_tol (n_water, 1.84, 0.005);
@@ -122,7 +122,7 @@ START_TEST (test_mixing_impeller_power_formula)
   bw_assert_rel (r.power_W, 1.27 * w.density_kg_m3 * 3.375 * 0.03125, 1e-12);
   bw_assert_rel (r.reynolds, w.density_kg_m3 * 1.5 * 0.25 / w.dynamic_viscosity_Pa_s, 1e-12);
   bw_assert_rel (r.tip_speed_m_s, G_PI * 0.75, 1e-15);
-  /* 999.70 kg/m3 and 1.3059 mPa s at 10 degC (REFERENCES.md, IAPWS): P = 166.6 W, Re = 2.87e5. */
+  /* 999.70 kg/m3 and 1.3059 mPa s at 10 degC (docs/references.md, IAPWS): P = 166.6 W, Re = 2.87e5. */
   bw_assert_rel (r.power_W, 1.27 * 999.7025 * 3.375 * 0.03125, 1e-6);
   bw_assert_rel (r.reynolds, 999.7025 * 0.375 / 1.30590e-3, 1e-4);
 
@@ -194,7 +194,7 @@ END_TEST
 START_TEST (test_mixing_hydraulic)
 {
   /* Derived: h = 0.5 m, Q = 0.1 m3/s, V = 2 m3 of 20 degC water (998.2072 kg/m3, 1.00160 mPa s,
-   * REFERENCES.md): P = rho g Q h = 489.453 W, G = sqrt (P / (mu V)) = 494.303 1/s, t = 20 s,
+   * docs/references.md): P = rho g Q h = 489.453 W, G = sqrt (P / (mu V)) = 494.303 1/s, t = 20 s,
    * Gt = 9886.07 (hand evaluation of Camp & Stein 1943). */
   BwWater w = bw_test_rounded_water (998.2072, 1.0016e-3);
   BwHydraulicResult r;

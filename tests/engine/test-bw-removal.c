@@ -35,7 +35,7 @@ END_TEST
 
 /*
  * Hazen (1904): 1 - [1 + (1/n)(vs/v0)]^-n.
- *  n = 3, vs/v0 = 1: 1 - (4/3)^-3 = 1 - 27/64 = 0.578125 (derived; REFERENCES.md 0.5781).
+ *  n = 3, vs/v0 = 1: 1 - (4/3)^-3 = 1 - 27/64 = 0.578125 (derived; docs/references.md 0.5781).
  *  n = 1, vs/v0 = 1: 1 - 1/2 = 0.5 (derived).
  *  n = 1, vs/v0 = 3: 1 - 1/4 = 0.75 (derived).
  *  n -> infinity: 1 - exp (-vs/v0) (derived: (1 + r/n)^-n -> e^-r), 0.63212056 at vs = v0; not
@@ -103,7 +103,7 @@ END_TEST
 
 /* --- Type I: a particle size distribution --- */
 
-/* Water at 20 degC with the properties REFERENCES.md lists (IAPWS-95 density, IAPWS 2008
+/* Water at 20 degC with the properties docs/references.md lists (IAPWS-95 density, IAPWS 2008
  * viscosity), set by hand so python3-fluids sees the same fluid. */
 static BwWater
 reference_water_20C (void)

@@ -27,7 +27,7 @@ water_at (double t_C)
 /* --- Camp's scour velocity --- */
 
 /*
- * k 0.05, s 1.25, d 100 um, f 0.025, g 9.81 -> 0.0626 m/s (REFERENCES.md: from memory, Metcalf &
+ * k 0.05, s 1.25, d 100 um, f 0.025, g 9.81 -> 0.0626 m/s (docs/references.md: from memory, Metcalf &
  * Eddy; three printed digits, so 0.1 %). Derived: sqrt (8 * 0.05 * 0.25 * 9.81 * 1e-4 / 0.025) =
  * 0.0626418390534633 by hand (python3 math.sqrt); round-off only, 1e-12.
  */
@@ -69,7 +69,7 @@ END_TEST
  * Derived (hand arithmetic, q = 0.5/6): A 222 m2, v0 = q/A = 3.7537538e-4 m/s, t = A H / q =
  * 7992 s, vh = q/(W H) = 6.9444444e-3 m/s, Rh = 12/10 = 1.2 m, Fr = vh^2/(9.80665 Rh) =
  * 4.0980108e-6 (below 1e-5: the Froude caution, as Davis notes such basins rarely meet it),
- * Re = vh Rh / nu with nu(10 degC) = 1.30590e-3 / 999.7025 = 1.3062886e-6 m2/s (REFERENCES.md,
+ * Re = vh Rh / nu with nu(10 degC) = 1.30590e-3 / 999.7025 = 1.3062886e-6 m2/s (docs/references.md,
  * IAPWS): 6379.397 (below 20 000). The engine's own water is within 1e-4 of those properties.
  */
 START_TEST (test_rect_basin_davis_example_10_4)
@@ -310,7 +310,7 @@ END_TEST
  * at 10 degC (nu 1.307e-6) Re = "19.112 or 19" (< 50) and Fr = 3.26e-5 (> 1e-5), both evaluated
  * with v = 0.0020 m/s as rounded. The hydraulic radius d/4, not the diameter, reproduces them.
  *  - Plan mode: v0 = 0.25 / (144 sin 60) = 2.0046884e-3 m/s (derived); Re and Fr from it are
- *    19.183 and 3.2784e-5 (derived, nu(10 degC) = 1.3062886e-6 from REFERENCES.md).
+ *    19.183 and 3.2784e-5 (derived, nu(10 degC) = 1.3062886e-6 from docs/references.md).
  *  - Counted mode, tuned to v0 = 0.0020 m/s exactly: 1000 tubes of 50 mm carrying
  *    1000 x pi 0.05^2 / 4 x 0.002 m3/s: Re 19.138 and Fr 3.2631e-5 (derived), within 0.2 % of the
  *    printed 19.112 and within the printed digits of 3.26e-5.

@@ -23,7 +23,7 @@ implied_cd (double d, double rho_p, double rho_f, double g, double v)
  * mu = 0.955 mPa s, g = 9.81 m/s2.
  *  - Stokes velocity 3.77e-2 m/s (seen; printed to 3 digits, so 0.15 %).
  *  - Converged with the Davis correlation: 0.0272964 m/s, Re 5.71652 (derived: scipy brentq on
- *    Eq. 10-10 with Eq. 10-11, same inputs). REFERENCES.md lists 0.02726 m/s, Re 5.70 (derived),
+ *    Eq. 10-10 with Eq. 10-11, same inputs). docs/references.md lists 0.02726 m/s, Re 5.70 (derived),
  *    0.13 % lower, as a hand iteration stopped one step early would be; checked below at 0.2 %.
  *  The solver stops at a relative step of 1e-12, so 1e-9 relative is a fair bound.
  */

@@ -9,7 +9,7 @@
 #include "engine/bw-units.h"
 
 /* Conversion factors below are the exact definitions of NIST SP 811 (2008) Appendix B, or the
- * values REFERENCES.md lists as exact (seen): 1 MGD = 0.0438126364 m3/s, 1 gpm = 6.30901964e-5 m3/s,
+ * values docs/references.md lists as exact (seen): 1 MGD = 0.0438126364 m3/s, 1 gpm = 6.30901964e-5 m3/s,
  * 1 gpm/ft2 = 2.44475 m/h, 1 gpd/ft2 = 0.0407458 m/d, 20 000 gpd/ft = 248.387 m3/(d m). The
  * tolerance 1e-12 is round-off only; the rounded published values get the tolerance of their
  * printed digits. */
@@ -22,7 +22,7 @@ typedef struct
 } ParseCase;
 
 static const ParseCase parse_cases[] = {
-  { "10 MGD", BW_KIND_FLOW, 0.438126364, 1e-9 },               /* REFERENCES: 1 MGD = 0.0438126364 */
+  { "10 MGD", BW_KIND_FLOW, 0.438126364, 1e-9 },               /* docs/references.md: 1 MGD = 0.0438126364 */
   { "10MGD", BW_KIND_FLOW, 0.438126364, 1e-9 },
   { "0.44 m3/s", BW_KIND_FLOW, 0.44, 1e-12 },
   { "0.44m³/s", BW_KIND_FLOW, 0.44, 1e-12 },
@@ -56,7 +56,7 @@ static const ParseCase parse_cases[] = {
   { "4h", BW_KIND_TIME, 14400, 1e-12 },
   { "0.5 ft/min", BW_KIND_VELOCITY, 0.00254, 1e-12 },          /* 1 ft/min = 0.00508 m/s */
   { "1.0016 mPa·s", BW_KIND_DYNAMIC_VISCOSITY, 1.0016e-3, 1e-12 },
-  { "1 lbf·s/ft2", BW_KIND_DYNAMIC_VISCOSITY, 47.880259, 1e-8 }, /* REFERENCES, 8 digits */
+  { "1 lbf·s/ft2", BW_KIND_DYNAMIC_VISCOSITY, 47.880259, 1e-8 }, /* docs/references.md, 8 digits */
   { "2 µm·cm/(V·s)", BW_KIND_MOBILITY, 2e-8, 1e-12 },
   { "2 um*cm/(V*s)", BW_KIND_MOBILITY, 2e-8, 1e-12 },
   { "0.3 m", BW_KIND_HEAD, 0.3, 1e-12 },                       /* head accepts lengths */

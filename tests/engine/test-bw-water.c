@@ -11,7 +11,7 @@
 #define C_TO_K(t) ((t) + 273.15)
 
 /*
- * Reference table at 101.325 kPa (docs REFERENCES.md, "Water"), each column recomputed here with
+ * Reference table at 101.325 kPa (docs/references.md, "Water"), each column recomputed here with
  * python3-iapws 1.5.2 before use:
  *   rho: IAPWS-95 (iapws.IAPWS95(T, P=0.101325)), kg/m3, 7 significant digits;
  *   mu:  IAPWS 2008 at the IAPWS-95 density (iapws._iapws._Viscosity), mPa s, 6 digits;
@@ -31,10 +31,10 @@ static const struct
   { 40.0, 992.2164, 0.65273, 73.150 },
 };
 
-/* IAPWS R8-97 permittivity at the same points (REFERENCES.md), for the documented offset. */
+/* IAPWS R8-97 permittivity at the same points (docs/references.md), for the documented offset. */
 static const double eps_r8_97[] = { 87.903, 83.975, 80.223, 76.634, 73.201 };
 
-/* Density. Tanaka (2001) and IAPWS-95 differ by at most 0.0012 kg/m3 over 0-40 degC (REFERENCES.md;
+/* Density. Tanaka (2001) and IAPWS-95 differ by at most 0.0012 kg/m3 over 0-40 degC (docs/references.md;
  * 0.00114 found by tests/ref), i.e. 1.2e-6 relative; the table rounds to 1e-7. So 2e-6 relative is
  * tight enough to catch a wrong coefficient digit and far inside the 0.05 % the engine promises. */
 START_TEST (test_water_density_table)
@@ -67,7 +67,7 @@ START_TEST (test_water_permittivity_table)
 END_TEST
 
 /* The engine documents that it uses Malmberg-Maryott, which reads 0.05-0.2 % below IAPWS R8-97
- * (REFERENCES.md). If someone swapped in R8-97 or another fit, this fails. */
+ * (docs/references.md). If someone swapped in R8-97 or another fit, this fails. */
 START_TEST (test_water_permittivity_is_malmberg_maryott)
 {
   double t_C = water_table[_i].t_C;
@@ -82,7 +82,7 @@ END_TEST
 
 /*
  * IAPWS R12-08 verification points for mu0 * mu1 (mu2 = 1), in uPa s. The first (298.15 K,
- * 998 kg/m3 -> 889.735100) is seen in the release (REFERENCES.md); the others are from memory of
+ * 998 kg/m3 -> 889.735100) is seen in the release (docs/references.md); the others are from memory of
  * the same table and were confirmed to all 9 digits with python3-iapws _Viscosity (rho, T).
  * They are printed to 6 decimals, so the tolerance is half a unit of the last digit, 5e-7 uPa s
  * (plus 1e-7 for our own round-off).
