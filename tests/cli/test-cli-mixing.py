@@ -91,7 +91,7 @@ def impeller_davis():
           "Re")
     close(d["G_per_s"], math.sqrt(d["power_W"] / (w["dynamic_viscosity_Pa_s"] * 0.665)), 1e-9, "G")
     assert d["low_reynolds"] is False
-    # From the water power instead (363.6 W -> 1.84 rev/s, REFERENCES.md derived), G = 600.
+    # From the water power instead (363.6 W -> 1.84 rev/s, docs/references.md derived), G = 600.
     d = run_json("impeller", "--kind", "rushton", "--diameter", "0.4", "--speed", "1.84rps",
                  "--volume", "0.665", "--temp", "5", "--flow", "11.5e3m3/d", "--efficiency", "0.8")
     close(d["G_per_s"], 600.0, 5e-3, "G at 1.84 rev/s")
@@ -266,7 +266,7 @@ tap.check("baffled: channel geometry against python3-fluids (Manning, K heads)",
 
 # --- flocmodel
 def flocmodel_reference():
-    # REFERENCES.md (derived): T = 1200 s, KA 4.5e-5, KB 1e-7 s, G 50, m = 3 -> n0/n = 4.1545.
+    # docs/references.md (derived): T = 1200 s, KA 4.5e-5, KB 1e-7 s, G 50, m = 3 -> n0/n = 4.1545.
     d = run_json("flocmodel", "--g", "50", "--time", "20min", "--compartments", "3")
     assert "remaining_fraction" in d, d.keys()
     close(d["remaining_fraction"], 1 / 4.1545, 2e-5, "remaining")
@@ -274,7 +274,7 @@ def flocmodel_reference():
     e = run_json("flocmodel", "--g", "3000/min", "--time", "1200s", "--compartments", "3",
                  "--ka", "4.5e-5", "--kb", "1e-7s")
     close(e["remaining_fraction"], d["remaining_fraction"], 1e-12, "suffixes and explicit defaults")
-    # For m = 1 the best G is near 70 1/s (REFERENCES.md); ours, analytically, 74.63 (derived).
+    # For m = 1 the best G is near 70 1/s (docs/references.md); ours, analytically, 74.63 (derived).
     f = run_json("flocmodel", "--g", "50", "--time", "1200", "--compartments", "1")
     close(f["optimum_G_per_s"], 74.628, 1e-4, "best G, m = 1")
     assert f["optimum_remaining_fraction"] < f["remaining_fraction"]

@@ -339,7 +339,7 @@ START_TEST (test_criteria_units_converted)
   const BwCriterion *c;
 
   ck_assert_msg (s != NULL, "%s", error ? error->message : "");
-  /* 20 000 gpd/ft = 248.387 m3/(d m) (REFERENCES.md, exact conversion). */
+  /* 20 000 gpd/ft = 248.387 m3/(d m) (docs/references.md, exact conversion). */
   c = bw_criteria_set_find (s, "rsww-sed-weir");
   bw_assert_rel (c->required.max * 86400, 248.387, 2e-6);
   /* 0.5 ft/min = 0.00254 m/s exactly. */
