@@ -23,6 +23,9 @@ static const BwCliCommand *const commands[] = {
   &bw_cli_cmd_compute,
   &bw_cli_cmd_check,
   &bw_cli_cmd_criteria,
+  &bw_cli_cmd_coagulant,
+  &bw_cli_cmd_zeta,
+  &bw_cli_cmd_jartest,
 };
 
 static void

@@ -133,5 +133,8 @@ extern const BwCliCommand bw_cli_cmd_removal;
 extern const BwCliCommand bw_cli_cmd_compute;
 extern const BwCliCommand bw_cli_cmd_check;
 extern const BwCliCommand bw_cli_cmd_criteria;
+extern const BwCliCommand bw_cli_cmd_coagulant;
+extern const BwCliCommand bw_cli_cmd_zeta;
+extern const BwCliCommand bw_cli_cmd_jartest;
 
 G_END_DECLS
