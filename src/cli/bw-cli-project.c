@@ -21,7 +21,7 @@ json_key (BwQuantity q)
     [BW_KIND_FLOW] = "_m3_s", [BW_KIND_VELOCITY] = "_m_s", [BW_KIND_SURFACE_LOADING] = "_m_s",
     [BW_KIND_WEIR_LOADING] = "_m2_s", [BW_KIND_TIME] = "_s", [BW_KIND_POWER] = "_W",
     [BW_KIND_HEAD] = "_m", [BW_KIND_RATE] = "_per_s", [BW_KIND_FRACTION] = "_fraction",
-    [BW_KIND_NUMBER] = "",
+    [BW_KIND_NUMBER] = "", [BW_KIND_MASS_FLOW] = "_kg_s", [BW_KIND_CONCENTRATION] = "_kg_m3",
   };
   const BwQuantityInfo *info = bw_quantity_info (q);
   return g_strconcat (info->name, suffix[info->kind] ? suffix[info->kind] : "", NULL);

@@ -380,11 +380,34 @@ all_finite (const BwQuantitySet *s)
   return TRUE;
 }
 
+/* What the coagulant adds to a unit's results: the rapid mix receives the feed at the maximum
+ * dose (what the feed system must deliver) and the alkalinity it leaves; a settling unit collects
+ * the sludge of the design dose (Cornwell et al. 1987, from memory; see bw-chemistry.c). */
+static void
+add_chemistry (const BwProject *p, const BwCoagulant *co, BwElementType type, double q,
+               BwQuantitySet *s)
+{
+  const BwChemistryBasis *c = &p->chemistry;
+
+  if (type == BW_ELEMENT_RAPID_MIX)
+    {
+      bw_quantity_set_put (s, BW_Q_COAGULANT_FEED, c->dose_max_kg_m3 * q);
+      if (p->basis.alkalinity_kg_m3 > 0)
+        bw_quantity_set_put (s, BW_Q_RESIDUAL_ALKALINITY,
+                             p->basis.alkalinity_kg_m3 - co->alkalinity_factor * c->dose_max_kg_m3);
+    }
+  else if (type == BW_ELEMENT_RECTANGULAR_BASIN || type == BW_ELEMENT_CIRCULAR_CLARIFIER
+           || type == BW_ELEMENT_PLATE_SETTLER || type == BW_ELEMENT_TUBE_SETTLER)
+    bw_quantity_set_put (s, BW_Q_SLUDGE, q * (co->sludge_factor * c->dose_design_kg_m3
+                                              + c->ss_factor * p->basis.turbidity_NTU * 1e-3));
+}
+
 BwResults *
 bw_project_evaluate (const BwProject *p, GError **error)
 {
   g_autoptr (BwResults) r = g_new0 (BwResults, 1);
   guint n = 0;
+  BwCoagulant coagulant;
 
   g_return_val_if_fail (p != NULL, NULL);
   if (!bw_project_validate (p, error))
@@ -395,6 +418,8 @@ bw_project_evaluate (const BwProject *p, GError **error)
       r->cases[n++] = g_array_index (p->cases, BwLoadCase, i);
   r->n_cases = n;
   r->elements = g_ptr_array_new_with_free_func ((GDestroyNotify) element_free);
+  if (p->chemistry.enabled && !bw_project_coagulant (p, &coagulant, error))
+    return prefix_error (error, "chemistry"), NULL;
   if (n == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
@@ -473,6 +498,8 @@ bw_project_evaluate (const BwProject *p, GError **error)
                 }
               if (!ok)
                 return prefix_error (error, u->id), NULL;
+              if (p->chemistry.enabled)
+                add_chemistry (p, &coagulant, e->type, q, &e->values[c]);
               if (!all_finite (&e->values[c]))
                 {
                   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,

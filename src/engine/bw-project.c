@@ -18,6 +18,10 @@ bw_project_new (void)
   p->trains = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_train_free);
   p->cases = g_array_new (FALSE, TRUE, sizeof (BwLoadCase));
   p->foreign = g_ptr_array_new_with_free_func (g_free);
+  p->jar_tests = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_jar_test_record_free);
+  p->chemistry.kind = BW_COAGULANT_ALUM;
+  p->chemistry.hydrate_waters = 14;
+  p->chemistry.ss_factor = 1.3;
   p->basis.temperature_K[BW_TEMP_COLDEST] = 273.15 + 5.0;
   p->basis.temperature_K[BW_TEMP_WARMEST] = 273.15 + 25.0;
   p->basis.ph = 7.0;
@@ -38,7 +42,54 @@ bw_project_free (BwProject *p)
   g_ptr_array_unref (p->trains);
   g_array_unref (p->cases);
   g_ptr_array_unref (p->foreign);
+  g_ptr_array_unref (p->jar_tests);
+  g_free (p->chemistry.jar_test);
   g_free (p);
+}
+
+BwJarTestRecord *
+bw_jar_test_record_new (const char *id, const char *name)
+{
+  BwJarTestRecord *r = g_new0 (BwJarTestRecord, 1);
+
+  r->id = g_strdup (id);
+  r->name = g_strdup (name);
+  r->temperature_K = 293.15;
+  return r;
+}
+
+void
+bw_jar_test_record_free (BwJarTestRecord *r)
+{
+  if (r == NULL)
+    return;
+  g_free (r->id);
+  g_free (r->name);
+  g_free (r);
+}
+
+gboolean
+bw_project_coagulant (const BwProject *p, BwCoagulant *out, GError **error)
+{
+  const BwChemistryBasis *c = &p->chemistry;
+
+  switch (c->kind)
+    {
+    case BW_COAGULANT_ALUM:
+      return bw_coagulant_alum (c->hydrate_waters, out, error);
+    case BW_COAGULANT_FERRIC_CHLORIDE:
+      bw_coagulant_ferric_chloride (out);
+      return TRUE;
+    case BW_COAGULANT_FERRIC_SULFATE:
+      bw_coagulant_ferric_sulfate (out);
+      return TRUE;
+    case BW_COAGULANT_PACL:
+      return bw_coagulant_pacl (c->al2o3_fraction, c->basicity, out, error);
+    default:
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "coagulant: a project takes alum, ferric chloride, ferric sulfate or PACl");
+      return FALSE;
+    }
 }
 
 static GPtrArray *
@@ -64,6 +115,16 @@ bw_project_copy (const BwProject *p)
   c->description = g_strdup (p->description);
   c->criteria = g_strdup (p->criteria);
   c->basis = p->basis;
+  c->chemistry = p->chemistry;
+  c->chemistry.jar_test = g_strdup (p->chemistry.jar_test);
+  for (guint i = 0; i < p->jar_tests->len; i++)
+    {
+      const BwJarTestRecord *r = g_ptr_array_index (p->jar_tests, i);
+      BwJarTestRecord *rc = bw_jar_test_record_new (r->id, r->name);
+      rc->temperature_K = r->temperature_K;
+      rc->series = r->series;
+      g_ptr_array_add (c->jar_tests, rc);
+    }
   for (guint i = 0; i < p->trains->len; i++)
     {
       const BwTrain *t = g_ptr_array_index (p->trains, i);
@@ -380,6 +441,48 @@ bw_project_validate (const BwProject *p, GError **error)
       || !bw_check_nonnegative (b->alkalinity_kg_m3, "raw-water alkalinity", error)
       || !bw_check_range (b->ph, 0, 14, "raw-water pH", "", error))
     return FALSE;
+  if (p->chemistry.enabled)
+    {
+      const BwChemistryBasis *c = &p->chemistry;
+      BwCoagulant co;
+      if (!bw_check_range (c->dose_min_kg_m3, 0, 1, "minimum dose", "kg/m³", error)
+          || !bw_check_range (c->dose_design_kg_m3, 0, 1, "design dose", "kg/m³", error)
+          || !bw_check_range (c->dose_max_kg_m3, 0, 1, "maximum dose", "kg/m³", error)
+          || !bw_check_range (c->ss_factor, 0, 10, "suspended solids factor", "mg/L per NTU", error)
+          || !bw_check_range (c->residual_target_kg_m3, 0, 2, "residual alkalinity target", "kg/m³", error)
+          || !bw_project_coagulant (p, &co, error))
+        return FALSE;
+      if (c->dose_min_kg_m3 > c->dose_design_kg_m3 || c->dose_design_kg_m3 > c->dose_max_kg_m3)
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                       "design dose: the doses must run minimum <= design <= maximum");
+          return FALSE;
+        }
+      if (c->jar_test)
+        {
+          gboolean found = FALSE;
+          for (guint i = 0; i < p->jar_tests->len && !found; i++)
+            found = g_strcmp0 (((BwJarTestRecord *) g_ptr_array_index (p->jar_tests, i))->id, c->jar_test) == 0;
+          if (!found)
+            {
+              g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                           "jar test: the chemistry names '%s', which the project does not hold",
+                           c->jar_test);
+              return FALSE;
+            }
+        }
+    }
+  for (guint i = 0; i < p->jar_tests->len; i++)
+    {
+      BwJarTestRecord *r = g_ptr_array_index (p->jar_tests, i);
+      BwJarSeries s = r->series;
+      g_autoptr (GError) local = NULL;
+      if (!bw_jar_series_prepare (&s, &local))
+        {
+          g_set_error (error, BW_ENGINE_ERROR, local->code, "jar test %s: %s", r->id, local->message);
+          return FALSE;
+        }
+    }
   if (p->trains->len == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "trains: the plant has none");
@@ -493,6 +596,33 @@ bw_project_equal (const BwProject *a, const BwProject *b)
   for (int t = 0; t < BW_N_TEMP_KINDS; t++)
     if (x->temperature_K[t] != y->temperature_K[t])
       return FALSE;
+  {
+    const BwChemistryBasis *c = &a->chemistry, *d = &b->chemistry;
+    if (c->enabled != d->enabled || c->kind != d->kind || c->hydrate_waters != d->hydrate_waters
+        || c->al2o3_fraction != d->al2o3_fraction || c->basicity != d->basicity
+        || c->dose_min_kg_m3 != d->dose_min_kg_m3 || c->dose_design_kg_m3 != d->dose_design_kg_m3
+        || c->dose_max_kg_m3 != d->dose_max_kg_m3 || c->ss_factor != d->ss_factor
+        || c->residual_target_kg_m3 != d->residual_target_kg_m3 || g_strcmp0 (c->jar_test, d->jar_test))
+      return FALSE;
+  }
+  if (a->jar_tests->len != b->jar_tests->len)
+    return FALSE;
+  for (guint i = 0; i < a->jar_tests->len; i++)
+    {
+      const BwJarTestRecord *r = g_ptr_array_index (a->jar_tests, i), *s = g_ptr_array_index (b->jar_tests, i);
+      if (g_strcmp0 (r->id, s->id) || g_strcmp0 (r->name, s->name) || r->temperature_K != s->temperature_K
+          || r->series.n_jars != s->series.n_jars || r->series.has_ph != s->series.has_ph
+          || r->series.has_zeta != s->series.has_zeta || r->series.has_mobility != s->series.has_mobility)
+        return FALSE;
+      for (guint k = 0; k < r->series.n_jars; k++)
+        {
+          const BwJar *u = &r->series.jars[k], *v = &s->series.jars[k];
+          if (u->dose_kg_m3 != v->dose_kg_m3 || u->turbidity_NTU != v->turbidity_NTU
+              || (r->series.has_ph && u->ph != v->ph) || (r->series.has_zeta && u->zeta_V != v->zeta_V)
+              || (r->series.has_mobility && u->mobility_m2_V_s != v->mobility_m2_V_s))
+            return FALSE;
+        }
+    }
   if (a->trains->len != b->trains->len || a->cases->len != b->cases->len
       || !strings_equal (a->foreign, b->foreign))
     return FALSE;

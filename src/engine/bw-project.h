@@ -4,7 +4,9 @@
 
 #include <glib.h>
 
+#include "engine/bw-chemistry.h"
 #include "engine/bw-criteria.h"
+#include "engine/bw-jartest.h"
 #include "engine/bw-params.h"
 
 G_BEGIN_DECLS
@@ -41,6 +43,32 @@ typedef struct
   double ph;
 } BwDesignBasis;
 
+/* The coagulant and its dose range, which the rapid mix receives and whose sludge the settling
+ * units collect. */
+typedef struct
+{
+  gboolean enabled;
+  BwCoagulantKind kind;         /* alum, ferric-chloride, ferric-sulfate or pacl */
+  double hydrate_waters;        /* alum only */
+  double al2o3_fraction;        /* PACl only */
+  double basicity;              /* PACl only */
+  double dose_min_kg_m3;
+  double dose_design_kg_m3;
+  double dose_max_kg_m3;
+  double ss_factor;             /* mg/L of suspended solids per NTU */
+  double residual_target_kg_m3; /* alkalinity as CaCO3 to keep; 0 for none */
+  char *jar_test;               /* id of the jar-test series the dose was chosen from, or NULL */
+} BwChemistryBasis;
+
+/* A jar-test series kept with the project. */
+typedef struct
+{
+  char *id;
+  char *name;
+  double temperature_K;
+  BwJarSeries series;
+} BwJarTestRecord;
+
 typedef struct
 {
   BwFlowKind flow;
@@ -58,6 +86,8 @@ typedef struct
   char *description;
   char *criteria;    /* criteria-set id (or path) the project is checked against */
   BwDesignBasis basis;
+  BwChemistryBasis chemistry;
+  GPtrArray *jar_tests; /* BwJarTestRecord* */
   GPtrArray *trains; /* BwTrain* */
   GArray *cases;     /* BwLoadCase */
   GPtrArray *foreign;/* char*: XML of unknown top-level elements kept from a newer file */
@@ -66,6 +96,12 @@ typedef struct
 BwProject *bw_project_new (void);
 void bw_project_free (BwProject *p);
 BwProject *bw_project_copy (const BwProject *p);
+
+/* The coagulant of P's chemistry basis (fails for an incoherent one, naming the field). */
+gboolean bw_project_coagulant (const BwProject *p, BwCoagulant *out, GError **error);
+
+BwJarTestRecord *bw_jar_test_record_new (const char *id, const char *name);
+void bw_jar_test_record_free (BwJarTestRecord *r);
 
 BwTrain *bw_train_new (const char *id, const char *name);
 void bw_train_free (BwTrain *t);

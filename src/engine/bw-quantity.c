@@ -34,6 +34,10 @@ static const BwQuantityInfo quantities[BW_N_QUANTITIES] = {
   [BW_Q_CRITICAL_VELOCITY] = { "critical_velocity", "critical settling velocity", BW_KIND_VELOCITY },
   [BW_Q_CHANNEL_REYNOLDS] = { "channel_reynolds", "channel Reynolds number", BW_KIND_NUMBER },
   [BW_Q_REMOVAL] = { "removal", "predicted removal", BW_KIND_FRACTION },
+  [BW_Q_COAGULANT_FEED] = { "coagulant_feed", "coagulant feed (maximum dose)", BW_KIND_MASS_FLOW },
+  [BW_Q_RESIDUAL_ALKALINITY] = { "residual_alkalinity", "residual alkalinity as CaCO3 (maximum dose)",
+                                 BW_KIND_CONCENTRATION },
+  [BW_Q_SLUDGE] = { "sludge", "dry sludge (design dose)", BW_KIND_MASS_FLOW },
 };
 
 G_STATIC_ASSERT (BW_N_QUANTITIES <= 64); /* BwQuantitySet.present is a 64-bit mask */

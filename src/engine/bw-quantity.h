@@ -38,6 +38,9 @@ typedef enum
   BW_Q_CRITICAL_VELOCITY,      /* m/s, Yao's critical settling velocity */
   BW_Q_CHANNEL_REYNOLDS,       /* dimensionless, in a plate or tube channel */
   BW_Q_REMOVAL,                /* fraction of the design particles removed */
+  BW_Q_COAGULANT_FEED,         /* kg/s of coagulant product into one unit, at the maximum dose */
+  BW_Q_RESIDUAL_ALKALINITY,    /* kg/m3 as CaCO3 left after the maximum dose */
+  BW_Q_SLUDGE,                 /* kg/s of dry sludge settling in one basin, at the design dose */
   BW_N_QUANTITIES
 } BwQuantity;
 

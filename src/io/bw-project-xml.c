@@ -233,6 +233,110 @@ read_basis (xmlNode *node, BwProject *p, const char *path, GError **error)
   return TRUE;
 }
 
+static gboolean
+read_chemistry (xmlNode *node, BwProject *p, const char *path, GError **error)
+{
+  BwChemistryBasis *c = &p->chemistry;
+  g_autofree char *kind = bw_xml_prop (node, "coagulant");
+  guint doses = 0;
+
+  c->enabled = TRUE;
+  c->jar_test = bw_xml_prop (node, "jar-test");
+  if (!bw_coagulant_kind_from_name (kind, &c->kind))
+    return fail (error, path, node, "chemistry: '%s' is not a coagulant", kind);
+  for (xmlNode *k = node->children; k; k = k->next)
+    {
+      if (bw_xml_is (k, NS, "hydrate")
+          && !read_quantity (k, BW_KIND_NUMBER, "hydrate", &c->hydrate_waters, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "al2o3")
+          && !read_quantity (k, BW_KIND_FRACTION, "Al2O3 content", &c->al2o3_fraction, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "basicity")
+          && !read_quantity (k, BW_KIND_FRACTION, "basicity", &c->basicity, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "ss-factor")
+          && !read_quantity (k, BW_KIND_NUMBER, "suspended solids factor", &c->ss_factor, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "residual-alkalinity")
+          && !read_quantity (k, BW_KIND_CONCENTRATION, "residual alkalinity", &c->residual_target_kg_m3,
+                             path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "dose"))
+        {
+          g_autofree char *which = bw_xml_prop (k, "case");
+          double *slot = g_strcmp0 (which, "minimum") == 0 ? &c->dose_min_kg_m3
+                         : g_strcmp0 (which, "design") == 0 ? &c->dose_design_kg_m3 : &c->dose_max_kg_m3;
+          if (!read_quantity (k, BW_KIND_CONCENTRATION, "dose", slot, path, error))
+            return FALSE;
+          doses |= g_strcmp0 (which, "minimum") == 0 ? 1 : g_strcmp0 (which, "design") == 0 ? 2 : 4;
+        }
+    }
+  if (doses != 7)
+    return fail (error, path, node, "chemistry: the minimum, design and maximum doses are all needed");
+  return TRUE;
+}
+
+static gboolean
+read_number_attr (xmlNode *node, const char *name, double *out, gboolean *present, const char *path,
+                  GError **error)
+{
+  g_autofree char *text = bw_xml_prop (node, name);
+  char *end = NULL;
+
+  *present = text != NULL;
+  if (text == NULL)
+    return TRUE;
+  *out = g_ascii_strtod (text, &end);
+  if (end == text || *end != '\0' || !isfinite (*out))
+    return fail (error, path, node, "jar: %s='%s' is not a finite number", name, text);
+  return TRUE;
+}
+
+static gboolean
+read_jar_test (xmlNode *node, BwProject *p, const char *path, GError **error)
+{
+  g_autofree char *id = bw_xml_prop (node, "id");
+  g_autofree char *name = bw_xml_prop (node, "name");
+  BwJarTestRecord *r = bw_jar_test_record_new (id, name);
+  guint with_ph = 0, with_zeta = 0, with_mob = 0;
+
+  g_ptr_array_add (p->jar_tests, r);
+  for (xmlNode *k = node->children; k; k = k->next)
+    {
+      if (bw_xml_is (k, NS, "temperature")
+          && !read_quantity (k, BW_KIND_TEMPERATURE, "jar-test temperature", &r->temperature_K, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "jar"))
+        {
+          BwJar *j;
+          gboolean has = FALSE, d1, d2;
+          if (r->series.n_jars >= BW_JAR_MAX)
+            return fail (error, path, k, "jar test %s: more than %d jars", id, BW_JAR_MAX);
+          j = &r->series.jars[r->series.n_jars++];
+          if (!read_number_attr (k, "dose", &j->dose_kg_m3, &d1, path, error)
+              || !read_number_attr (k, "turbidity", &j->turbidity_NTU, &d2, path, error)
+              || !read_number_attr (k, "ph", &j->ph, &has, path, error))
+            return FALSE;
+          with_ph += has;
+          if (!read_number_attr (k, "zeta", &j->zeta_V, &has, path, error))
+            return FALSE;
+          with_zeta += has;
+          if (!read_number_attr (k, "mobility", &j->mobility_m2_V_s, &has, path, error))
+            return FALSE;
+          with_mob += has;
+        }
+    }
+  /* A column is either on every jar or on none. */
+  if ((with_ph && with_ph != r->series.n_jars) || (with_zeta && with_zeta != r->series.n_jars)
+      || (with_mob && with_mob != r->series.n_jars))
+    return fail (error, path, node, "jar test %s: pH, zeta or mobility is given for some jars only", id);
+  r->series.has_ph = with_ph > 0;
+  r->series.has_zeta = with_zeta > 0;
+  r->series.has_mobility = with_mob > 0;
+  return TRUE;
+}
+
 static BwProject *
 read_project (xmlDoc *doc, const char *path, GError **error)
 {
@@ -267,6 +371,16 @@ read_project (xmlDoc *doc, const char *path, GError **error)
       else if (bw_xml_is (k, NS, "design-basis"))
         {
           if (!read_basis (k, p, path, error))
+            return NULL;
+        }
+      else if (bw_xml_is (k, NS, "chemistry"))
+        {
+          if (!read_chemistry (k, p, path, error))
+            return NULL;
+        }
+      else if (bw_xml_is (k, NS, "jar-test"))
+        {
+          if (!read_jar_test (k, p, path, error))
             return NULL;
         }
       else if (bw_xml_is (k, NS, "load-cases"))
@@ -499,7 +613,77 @@ bw_project_to_xml (const BwProject *p)
   write_quantity (s, "      ", "alkalinity", " as=\"CaCO3\"", p->basis.alkalinity_kg_m3,
                   BW_KIND_CONCENTRATION);
   write_quantity (s, "      ", "ph", NULL, p->basis.ph, BW_KIND_NUMBER);
-  g_string_append (s, "    </raw-water>\n  </design-basis>\n  <load-cases>\n");
+  g_string_append (s, "    </raw-water>\n  </design-basis>\n");
+  if (p->chemistry.enabled)
+    {
+      const BwChemistryBasis *c = &p->chemistry;
+      const char *which[] = { "minimum", "design", "maximum" };
+      const double doses[] = { c->dose_min_kg_m3, c->dose_design_kg_m3, c->dose_max_kg_m3 };
+      g_string_append_printf (s, "  <chemistry coagulant=\"%s\"", bw_coagulant_kind_name (c->kind));
+      if (c->jar_test)
+        {
+          g_string_append (s, " jar-test=\"");
+          esc (s, c->jar_test);
+          g_string_append_c (s, '"');
+        }
+      g_string_append (s, ">\n");
+      if (c->kind == BW_COAGULANT_ALUM)
+        write_quantity (s, "    ", "hydrate", NULL, c->hydrate_waters, BW_KIND_NUMBER);
+      if (c->kind == BW_COAGULANT_PACL)
+        {
+          write_quantity (s, "    ", "al2o3", NULL, c->al2o3_fraction, BW_KIND_NUMBER);
+          write_quantity (s, "    ", "basicity", NULL, c->basicity, BW_KIND_NUMBER);
+        }
+      for (int i = 0; i < 3; i++)
+        {
+          g_autofree char *attrs = g_strdup_printf (" case=\"%s\"", which[i]);
+          write_quantity (s, "    ", "dose", attrs, doses[i], BW_KIND_CONCENTRATION);
+        }
+      write_quantity (s, "    ", "ss-factor", NULL, c->ss_factor, BW_KIND_NUMBER);
+      write_quantity (s, "    ", "residual-alkalinity", " as=\"CaCO3\"", c->residual_target_kg_m3,
+                      BW_KIND_CONCENTRATION);
+      g_string_append (s, "  </chemistry>\n");
+    }
+  for (guint i = 0; i < p->jar_tests->len; i++)
+    {
+      const BwJarTestRecord *r = g_ptr_array_index (p->jar_tests, i);
+      g_string_append (s, "  <jar-test id=\"");
+      esc (s, r->id);
+      g_string_append (s, "\" name=\"");
+      esc (s, r->name);
+      g_string_append (s, "\">\n");
+      write_quantity (s, "    ", "temperature", NULL, r->temperature_K, BW_KIND_TEMPERATURE);
+      for (guint k = 0; k < r->series.n_jars; k++)
+        {
+          const BwJar *j = &r->series.jars[k];
+          g_string_append (s, "    <jar dose=\"");
+          number (s, j->dose_kg_m3);
+          g_string_append (s, "\" turbidity=\"");
+          number (s, j->turbidity_NTU);
+          g_string_append_c (s, '"');
+          if (r->series.has_ph)
+            {
+              g_string_append (s, " ph=\"");
+              number (s, j->ph);
+              g_string_append_c (s, '"');
+            }
+          if (r->series.has_zeta)
+            {
+              g_string_append (s, " zeta=\"");
+              number (s, j->zeta_V);
+              g_string_append_c (s, '"');
+            }
+          if (r->series.has_mobility)
+            {
+              g_string_append (s, " mobility=\"");
+              number (s, j->mobility_m2_V_s);
+              g_string_append_c (s, '"');
+            }
+          g_string_append (s, "/>\n");
+        }
+      g_string_append (s, "  </jar-test>\n");
+    }
+  g_string_append (s, "  <load-cases>\n");
   for (guint i = 0; i < p->cases->len; i++)
     {
       const BwLoadCase *c = &g_array_index (p->cases, BwLoadCase, i);

@@ -31,6 +31,11 @@ def compute_keys():
     assert abs(r["detention_s"] - 156.8 * 4 / (0.35 / 3)) < 1e-6, r
     g = sed["governing"]["overflow_rate_m_s"]
     assert g["max_case"].startswith("peak-hour/"), g
+    # Sludge collected by the basin (derived, Cornwell's form): 0.15 m3/s at peak hour x
+    # (0.44435 x 30 mg/L alum + 1.3 x 18 NTU) = 0.15 x 36.73 g/m3 = 5.510 g/s.
+    peak = next(x for x in sed["results"] if x["case"] == "peak-hour/coldest/all-in-service")
+    alum14 = 2 * (26.9815385 + 3 * 17.007 + 3 * 18.015) / (2 * 26.9815385 + 3 * 96.056 + 14 * 18.015)
+    assert abs(peak["sludge_kg_s"] - 0.15 * (alum14 * 0.030 + 1.3 * 18e-3)) < 1e-12, peak
     rm = next(e for e in d["elements"] if e["id"] == "north-rm")
     firm = next(x for x in rm["results"] if x["case"] == "maximum-day/coldest/firm")
     alls = next(x for x in rm["results"] if x["case"] == "maximum-day/coldest/all-in-service")

@@ -71,6 +71,19 @@ START_TEST (test_project_load_demo)
   ck_assert_ptr_nonnull (u);
   ck_assert_int_eq (u->type, BW_STAGE_BAFFLED);
   bw_assert_rel (p->basis.alkalinity_kg_m3, 0.065, 1e-12); /* 65 mg/L as CaCO3 */
+  /* The chemistry and the jar test it came from. */
+  ck_assert (p->chemistry.enabled);
+  ck_assert_int_eq (p->chemistry.kind, BW_COAGULANT_ALUM);
+  bw_assert_rel (p->chemistry.dose_design_kg_m3, 0.030, 1e-12);
+  bw_assert_rel (p->chemistry.residual_target_kg_m3, 0.020, 1e-12);
+  ck_assert_str_eq (p->chemistry.jar_test, "jt-2026-11");
+  ck_assert_uint_eq (p->jar_tests->len, 1);
+  {
+    const BwJarTestRecord *jt = g_ptr_array_index (p->jar_tests, 0);
+    ck_assert_uint_eq (jt->series.n_jars, 6);
+    ck_assert (jt->series.has_ph && jt->series.has_zeta && !jt->series.has_mobility);
+    bw_assert_rel (jt->temperature_K, 285.15, 1e-12);
+  }
 }
 END_TEST
 
@@ -200,6 +213,16 @@ static const HostileCase hostile[] = {
     BW_IO_ERROR_INVALID, "sideways" },
   { "NUL byte", "<revision>A</revision>", "<revision>A\0</revision>", BW_IO_ERROR_MALFORMED, "NUL" },
   { "not UTF-8", "<revision>A</revision>", "<revision>\xff\xfe</revision>", BW_IO_ERROR_MALFORMED, "UTF-8" },
+  { "doses out of order", "<dose case=\"minimum\" unit=\"mg/L\">15</dose>",
+    "<dose case=\"minimum\" unit=\"mg/L\">35</dose>", BW_IO_ERROR_INVALID, "minimum <= design" },
+  { "a dose missing", "<dose case=\"maximum\" unit=\"mg/L\">45</dose>", "", BW_IO_ERROR_INVALID,
+    "all needed" },
+  { "zeta on some jars only", "<jar dose=\"0.030\" turbidity=\"1.9\" ph=\"6.9\" zeta=\"-0.006\"/>",
+    "<jar dose=\"0.030\" turbidity=\"1.9\" ph=\"6.9\"/>", BW_IO_ERROR_INVALID, "some jars only" },
+  { "jar test not held", "jar-test=\"jt-2026-11\"", "jar-test=\"jt-missing\"", BW_IO_ERROR_INVALID,
+    "does not hold" },
+  { "two jars at one dose", "<jar dose=\"0.020\"", "<jar dose=\"0.010\"", BW_IO_ERROR_INVALID,
+    "two jars" },
   { "a blade beyond the wall", "<value param=\"blade-radius-1\" unit=\"m\">1.3</value>",
     "<value param=\"blade-radius-1\" unit=\"m\">1.9</value>", -1, "blade radius" },
 };
