@@ -26,6 +26,9 @@ static const BwCliCommand *const commands[] = {
   &bw_cli_cmd_coagulant,
   &bw_cli_cmd_zeta,
   &bw_cli_cmd_jartest,
+  &bw_cli_cmd_export,
+  &bw_cli_cmd_review,
+  &bw_cli_cmd_diff,
 };
 
 static void

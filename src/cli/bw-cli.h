@@ -136,5 +136,8 @@ extern const BwCliCommand bw_cli_cmd_criteria;
 extern const BwCliCommand bw_cli_cmd_coagulant;
 extern const BwCliCommand bw_cli_cmd_zeta;
 extern const BwCliCommand bw_cli_cmd_jartest;
+extern const BwCliCommand bw_cli_cmd_export;
+extern const BwCliCommand bw_cli_cmd_review;
+extern const BwCliCommand bw_cli_cmd_diff;
 
 G_END_DECLS
