@@ -29,6 +29,7 @@ static const BwCliCommand *const commands[] = {
   &bw_cli_cmd_export,
   &bw_cli_cmd_review,
   &bw_cli_cmd_diff,
+  &bw_cli_cmd_autosize,
 };
 
 static void

@@ -139,5 +139,6 @@ extern const BwCliCommand bw_cli_cmd_jartest;
 extern const BwCliCommand bw_cli_cmd_export;
 extern const BwCliCommand bw_cli_cmd_review;
 extern const BwCliCommand bw_cli_cmd_diff;
+extern const BwCliCommand bw_cli_cmd_autosize;
 
 G_END_DECLS

@@ -380,6 +380,64 @@ all_finite (const BwQuantitySet *s)
   return TRUE;
 }
 
+gboolean
+bw_unit_element_type (const BwProcessUnit *u, BwElementType *out)
+{
+  switch (u->type)
+    {
+    case BW_PROCESS_RAPID_MIX:
+    case BW_PROCESS_INLINE_MIXER: *out = BW_ELEMENT_RAPID_MIX; return TRUE;
+    case BW_PROCESS_FLOCCULATOR: *out = BW_ELEMENT_FLOCCULATOR; return TRUE;
+    case BW_PROCESS_RECTANGULAR_BASIN: *out = BW_ELEMENT_RECTANGULAR_BASIN; return TRUE;
+    case BW_PROCESS_CIRCULAR_CLARIFIER: *out = BW_ELEMENT_CIRCULAR_CLARIFIER; return TRUE;
+    case BW_PROCESS_PLATE_SETTLER:
+      *out = P (u, "shape") == 0 ? BW_ELEMENT_PLATE_SETTLER : BW_ELEMENT_TUBE_SETTLER;
+      return TRUE;
+    default:
+      return FALSE;
+    }
+}
+
+gboolean
+bw_evaluate_unit_case (const BwProcessUnit *u, double q, const BwWater *w, BwQuantitySet *out,
+                       BwQuantitySet **stage_out, guint *warnings, GError **error)
+{
+  guint dummy = 0;
+
+  if (warnings == NULL)
+    warnings = &dummy;
+  switch (u->type)
+    {
+    case BW_PROCESS_RAPID_MIX:
+      return eval_rapid_mix (u, q, w, out, warnings, error);
+    case BW_PROCESS_INLINE_MIXER:
+      return eval_inline_mixer (u, q, w, out, error);
+    case BW_PROCESS_FLOCCULATOR:
+      if (stage_out == NULL)
+        {
+          BwQuantitySet scratch[BW_FLOC_MAX_STAGES];
+          BwQuantitySet *sets[BW_FLOC_MAX_STAGES];
+          for (guint i = 0; i < BW_FLOC_MAX_STAGES; i++)
+            {
+              scratch[i].present = 0;
+              sets[i] = &scratch[i];
+            }
+          return eval_flocculator (u, q, w, out, sets, warnings, error);
+        }
+      return eval_flocculator (u, q, w, out, stage_out, warnings, error);
+    case BW_PROCESS_RECTANGULAR_BASIN:
+      return eval_rect_basin (u, q, w, out, warnings, error);
+    case BW_PROCESS_CIRCULAR_CLARIFIER:
+      return eval_clarifier (u, q, out, error);
+    case BW_PROCESS_PLATE_SETTLER:
+      return eval_settler (u, q, w, out, warnings, error);
+    default:
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "%s: a %s cannot stand on its own in a train", u->id, bw_process_type_label (u->type));
+      return FALSE;
+    }
+}
+
 /* What the coagulant adds to a unit's results: the rapid mix receives the feed at the maximum
  * dose (what the feed system must deliver) and the alkalinity it leaves; a settling unit collects
  * the sludge of the design dose (Cornwell et al. 1987, from memory; see bw-chemistry.c). */
@@ -437,17 +495,8 @@ bw_project_evaluate (const BwProject *p, GError **error)
           BwElementResult *stage_el[BW_FLOC_MAX_STAGES] = { 0 };
           BwElementType type;
 
-          switch (u->type)
+          if (!bw_unit_element_type (u, &type))
             {
-            case BW_PROCESS_RAPID_MIX:
-            case BW_PROCESS_INLINE_MIXER: type = BW_ELEMENT_RAPID_MIX; break;
-            case BW_PROCESS_FLOCCULATOR: type = BW_ELEMENT_FLOCCULATOR; break;
-            case BW_PROCESS_RECTANGULAR_BASIN: type = BW_ELEMENT_RECTANGULAR_BASIN; break;
-            case BW_PROCESS_CIRCULAR_CLARIFIER: type = BW_ELEMENT_CIRCULAR_CLARIFIER; break;
-            case BW_PROCESS_PLATE_SETTLER:
-              type = P (u, "shape") == 0 ? BW_ELEMENT_PLATE_SETTLER : BW_ELEMENT_TUBE_SETTLER;
-              break;
-            default:
               g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
                            "%s: a %s cannot stand on its own in a train", u->id,
                            bw_process_type_label (u->type));
@@ -467,35 +516,12 @@ bw_project_evaluate (const BwProject *p, GError **error)
 
               if (!bw_water_properties (p->basis.temperature_K[lc->temp], &w, error))
                 return prefix_error (error, "design basis"), NULL;
-              switch (u->type)
-                {
-                case BW_PROCESS_RAPID_MIX:
-                  ok = eval_rapid_mix (u, q, &w, &e->values[c], &e->warnings, error);
-                  break;
-                case BW_PROCESS_INLINE_MIXER:
-                  ok = eval_inline_mixer (u, q, &w, &e->values[c], error);
-                  break;
-                case BW_PROCESS_FLOCCULATOR:
-                  {
-                    BwQuantitySet *sets[BW_FLOC_MAX_STAGES];
-                    for (guint si = 0; si < u->stages->len && si < BW_FLOC_MAX_STAGES; si++)
-                      sets[si] = &stage_el[si]->values[c];
-                    ok = eval_flocculator (u, q, &w, &e->values[c], sets, &e->warnings, error);
-                    break;
-                  }
-                case BW_PROCESS_RECTANGULAR_BASIN:
-                  ok = eval_rect_basin (u, q, &w, &e->values[c], &e->warnings, error);
-                  break;
-                case BW_PROCESS_CIRCULAR_CLARIFIER:
-                  ok = eval_clarifier (u, q, &e->values[c], error);
-                  break;
-                case BW_PROCESS_PLATE_SETTLER:
-                  ok = eval_settler (u, q, &w, &e->values[c], &e->warnings, error);
-                  break;
-                default:
-                  g_assert_not_reached ();
-                  ok = FALSE;
-                }
+              {
+                BwQuantitySet *sets[BW_FLOC_MAX_STAGES];
+                for (guint si = 0; si < u->stages->len && si < BW_FLOC_MAX_STAGES; si++)
+                  sets[si] = &stage_el[si]->values[c];
+                ok = bw_evaluate_unit_case (u, q, &w, &e->values[c], sets, &e->warnings, error);
+              }
               if (!ok)
                 return prefix_error (error, u->id), NULL;
               if (p->chemistry.enabled)

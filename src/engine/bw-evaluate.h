@@ -35,6 +35,16 @@ typedef struct
 BwResults *bw_project_evaluate (const BwProject *p, GError **error);
 void bw_results_free (BwResults *r);
 
+/* The element type a unit of the train is checked as. FALSE for a stage type. */
+gboolean bw_unit_element_type (const BwProcessUnit *u, BwElementType *out);
+
+/* One unit in one load case: FLOW_M3_S through it (see bw_project_unit_flow), WATER at the case's
+ * temperature. OUT (cleared by the caller: present = 0) gets the unit's quantities; for a flocculator STAGE_OUT (may be NULL) gets one
+ * set per stage. Allocates nothing on success. Chemistry quantities are not added here. */
+gboolean bw_evaluate_unit_case (const BwProcessUnit *u, double flow_m3_s, const BwWater *water,
+                                BwQuantitySet *out, BwQuantitySet **stage_out, guint *warnings,
+                                GError **error);
+
 /* The load case where QUANTITY of ELEMENT is largest (or smallest); -1 when it is never present. */
 int bw_results_extreme_case (const BwResults *r, guint element, BwQuantity q, gboolean largest);
 

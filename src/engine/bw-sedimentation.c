@@ -207,32 +207,14 @@ inlet_is_valid (BwInletKind kind)
  *   Froude number         Fr = vh^2 / (g Rh)      (Davis 2010 Eq. 10-33)
  * with nu the kinematic viscosity (m2/s) and g standard gravity (m/s2).
  */
-gboolean
-bw_rect_basin_evaluate (const BwRectBasin *b, double flow_m3_s, const BwWater *water,
-                        BwRectBasinResult *out, GError **error)
+/* The arithmetic alone (Davis 2010 Ch. 10 for every quantity; see the header). */
+void
+bw_rect_basin_compute (const BwRectBasin *b, double flow_m3_s, const BwWater *water,
+                       double scour_velocity_m_s, BwRectBasinResult *out)
 {
   BwRectBasinResult r = { 0 };
-  double q;
+  const double q = flow_m3_s / b->n_basins;
 
-  g_return_val_if_fail (b != NULL && water != NULL && out != NULL, FALSE);
-  g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
-
-  if (!check_flow (flow_m3_s, error)
-      || !check_count (b->n_basins, MAX_BASINS, "basins", "basins in service", error)
-      || !check_length (b->length_m, "length", error)
-      || !check_length (b->width_m, "width", error)
-      || !check_length (b->depth_m, "depth", error)
-      || !check_optional_length (b->weir_length_m, "weir length", error)
-      || !check_water (water, error))
-    return FALSE;
-  if (!inlet_is_valid (b->inlet))
-    {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "inlet: unknown value %d",
-                   (int) b->inlet);
-      return FALSE;
-    }
-
-  q = flow_m3_s / b->n_basins;
   r.flow_per_basin_m3_s = q;
   r.surface_area_m2 = b->length_m * b->width_m;
   r.volume_m3 = r.surface_area_m2 * b->depth_m;
@@ -252,10 +234,9 @@ bw_rect_basin_evaluate (const BwRectBasin *b, double flow_m3_s, const BwWater *w
     }
   if (b->check_scour)
     {
-      if (!bw_scour_velocity (&b->scour, BW_GRAVITY_M_S2, &r.scour_velocity_m_s, error))
-        return FALSE;
       r.has_scour = TRUE;
-      r.scour_margin = r.scour_velocity_m_s / r.horizontal_velocity_m_s;
+      r.scour_velocity_m_s = scour_velocity_m_s;
+      r.scour_margin = scour_velocity_m_s / r.horizontal_velocity_m_s;
       if (r.scour_margin <= 1.0)
         r.cautions |= BW_SED_CAUTION_SCOUR;
     }
@@ -263,7 +244,37 @@ bw_rect_basin_evaluate (const BwRectBasin *b, double flow_m3_s, const BwWater *w
     r.cautions |= BW_SED_CAUTION_REYNOLDS_HIGH;
   if (r.froude <= BW_BASIN_FROUDE_MIN)
     r.cautions |= BW_SED_CAUTION_FROUDE_LOW;
+  *out = r;
+}
 
+gboolean
+bw_rect_basin_evaluate (const BwRectBasin *b, double flow_m3_s, const BwWater *water,
+                        BwRectBasinResult *out, GError **error)
+{
+  BwRectBasinResult r;
+  double scour_v = 0.0;
+
+  g_return_val_if_fail (b != NULL && water != NULL && out != NULL, FALSE);
+  g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
+
+  if (!check_flow (flow_m3_s, error)
+      || !check_count (b->n_basins, MAX_BASINS, "basins", "basins in service", error)
+      || !check_length (b->length_m, "length", error)
+      || !check_length (b->width_m, "width", error)
+      || !check_length (b->depth_m, "depth", error)
+      || !check_optional_length (b->weir_length_m, "weir length", error)
+      || !check_water (water, error))
+    return FALSE;
+  if (!inlet_is_valid (b->inlet))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "inlet: unknown value %d",
+                   (int) b->inlet);
+      return FALSE;
+    }
+
+  if (b->check_scour && !bw_scour_velocity (&b->scour, BW_GRAVITY_M_S2, &scour_v, error))
+    return FALSE;
+  bw_rect_basin_compute (b, flow_m3_s, water, scour_v, &r);
   {
     const double all[] = { r.surface_area_m2, r.volume_m3, r.overflow_rate_m_s, r.detention_s,
                            r.horizontal_velocity_m_s, r.weir_loading_m2_s, r.length_width_ratio,

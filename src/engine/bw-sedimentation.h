@@ -101,6 +101,12 @@ void bw_rect_basin_init (BwRectBasin *basin);
 gboolean bw_rect_basin_evaluate (const BwRectBasin *basin, double flow_m3_s, const BwWater *water,
                                  BwRectBasinResult *out, GError **error);
 
+/* The arithmetic of bw_rect_basin_evaluate without its checks, for hot loops (auto-size): B, the
+ * flow and WATER must be ones bw_rect_basin_evaluate accepts, and SCOUR_VELOCITY_M_S the value of
+ * bw_scour_velocity for B->scour (used when B->check_scour). Allocates nothing. */
+void bw_rect_basin_compute (const BwRectBasin *b, double flow_m3_s, const BwWater *water,
+                            double scour_velocity_m_s, BwRectBasinResult *out);
+
 /* Total weir crest length of N_LAUNDERS launders of LAUNDER_LENGTH_M (m) each, counting both edges
  * of each launder when DOUBLE_SIDED (water spills in over both), plus END_WEIR_M (m) of weir on the
  * end wall (0 for none). */

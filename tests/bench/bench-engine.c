@@ -1,0 +1,165 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bench-engine.c: engine speed figures (run by hand; asserts nothing about speed).
+ *   bench-engine [PROJECT]     candidate-case evaluations per second for a rectangular basin
+ *                              sweep, whole-project evaluation time, auto-size times
+ *   bench-engine --sweep-json  the basin sweep only, as JSON, for bench-sweep.py */
+#include "config.h"
+
+#include <math.h>
+#include <stdio.h>
+#include <stdlib.h>
+#include <string.h>
+#include <time.h>
+
+#include "engine/bw-autosize.h"
+#include "engine/bw-evaluate.h"
+#include "engine/bw-sedimentation.h"
+#include "engine/bw-water.h"
+#include "io/bw-criteria-xml.h"
+#include "io/bw-project-xml.h"
+
+static double
+now_s (void)
+{
+  struct timespec ts;
+  clock_gettime (CLOCK_MONOTONIC, &ts);
+  return (double) ts.tv_sec + 1e-9 * (double) ts.tv_nsec;
+}
+
+static int
+cmp_double (const void *a, const void *b)
+{
+  const double x = *(const double *) a, y = *(const double *) b;
+  return (x > y) - (x < y);
+}
+
+/* The sweep shared with bench-sweep.py (keep the two in step): one rectangular basin, widths
+ * 2-20 m by 0.1 m, lengths 10-150 m by 0.5 m, depths 3-5.5 m by 0.05 m, in 8 load cases
+ * (flows 0.0333, 0.0583, 0.1167, 0.15 m3/s x 2 and 24 degC: one demo train), weir 60 m. Limits (textbook set): overflow
+ * <= 70 m/d, depth 3-5 m, L/W >= 4, weir <= 250 m2/d, Re <= 20 000 and Fr >= 1e-5 at the maximum
+ * day (0.1167 m3/s), scour margin >= 1. Objective: the smallest volume. */
+#define N_CASES 8
+static const double sweep_flow[N_CASES] = { 0.0333, 0.0583, 0.1167, 0.15, 0.0333, 0.0583, 0.1167, 0.15 };
+static const double sweep_temp_C[N_CASES] = { 2, 2, 2, 2, 24, 24, 24, 24 };
+
+typedef struct
+{
+  double best_volume, best_w, best_l, best_h;
+  guint64 evals, passing;
+  double seconds;
+} Sweep;
+
+static void
+sweep (Sweep *out)
+{
+  BwWater w[N_CASES];
+  BwRectBasin b;
+  const double t0 = now_s ();
+
+  double scour_v;
+
+  for (int c = 0; c < N_CASES; c++)
+    bw_water_properties (273.15 + sweep_temp_C[c], &w[c], NULL);
+  bw_rect_basin_init (&b);
+  b.weir_length_m = 60;
+  b.check_scour = TRUE;
+  bw_scour_particle_init (&b.scour, 100e-6, 1.25);
+  bw_scour_velocity (&b.scour, BW_GRAVITY_M_S2, &scour_v, NULL);
+  memset (out, 0, sizeof *out);
+  out->best_volume = G_MAXDOUBLE;
+  for (int iw = 0; iw <= 180; iw++)
+    for (int il = 0; il <= 280; il++)
+      for (int ih = 0; ih <= 50; ih++)
+        {
+          gboolean ok = TRUE;
+          b.width_m = 2.0 + 0.1 * iw;
+          b.length_m = 10.0 + 0.5 * il;
+          b.depth_m = 3.0 + 0.05 * ih;
+          /* The geometry is checked once per candidate (the full entry point), then each case runs
+           * the bare arithmetic. */
+          BwRectBasinResult r;
+          if (!bw_rect_basin_evaluate (&b, sweep_flow[0], &w[0], &r, NULL))
+            continue;
+          for (int c = 0; c < N_CASES && ok; c++)
+            {
+              out->evals++;
+              bw_rect_basin_compute (&b, sweep_flow[c], &w[c], scour_v, &r);
+              ok = r.overflow_rate_m_s * 86400 <= 70 && b.depth_m <= 5 && r.length_width_ratio >= 4
+                   && r.weir_loading_m2_s * 86400 <= 250 && r.scour_margin >= 1
+                   && (c % 4 != 2 || (r.reynolds <= 20000 && r.froude >= 1e-5));
+            }
+          if (ok)
+            {
+              const double v = b.width_m * b.length_m * b.depth_m;
+              out->passing++;
+              if (v < out->best_volume - 1e-9)
+                {
+                  out->best_volume = v;
+                  out->best_w = b.width_m;
+                  out->best_l = b.length_m;
+                  out->best_h = b.depth_m;
+                }
+            }
+        }
+  out->seconds = now_s () - t0;
+}
+
+int
+main (int argc, char **argv)
+{
+  Sweep s;
+
+  if (argc > 1 && strcmp (argv[1], "--sweep-json") == 0)
+    {
+      sweep (&s);
+      printf ("{\"evaluations\":%" G_GUINT64_FORMAT ",\"seconds\":%.6f,\"passing\":%" G_GUINT64_FORMAT
+              ",\"best_volume_m3\":%.6f,\"best_width_m\":%.2f,\"best_length_m\":%.2f,\"best_depth_m\":%.2f}\n",
+              s.evals, s.seconds, s.passing, s.best_volume, s.best_w, s.best_l, s.best_h);
+      return 0;
+    }
+  printf ("basinwright %s engine benchmark (run by hand; figures only)\n", PACKAGE_VERSION);
+  sweep (&s);
+  printf ("rectangular-basin sweep      %" G_GUINT64_FORMAT " candidate-case evaluations in %.3f s: "
+          "%.1f million per second on one core\n", s.evals, s.seconds, s.evals / s.seconds / 1e6);
+  printf ("  best: %.2f x %.2f x %.2f m, %.1f m3 (%" G_GUINT64_FORMAT " passing)\n", s.best_w, s.best_l,
+          s.best_h, s.best_volume, s.passing);
+
+  {
+    const char *path = argc > 1 ? argv[1] : BW_SOURCE_DATADIR "/examples/marrowby-demo.bwproj";
+    g_autoptr (GError) error = NULL;
+    g_autoptr (BwProject) p = bw_project_load (path, &error);
+    g_autoptr (BwCriteriaSet) set = NULL;
+    double times[101];
+    if (p == NULL)
+      {
+        fprintf (stderr, "%s\n", error->message);
+        return 1;
+      }
+    for (int i = 0; i < 101; i++)
+      {
+        const double t0 = now_s ();
+        BwResults *r = bw_project_evaluate (p, NULL);
+        times[i] = now_s () - t0;
+        bw_results_free (r);
+      }
+    qsort (times, 101, sizeof (double), cmp_double);
+    printf ("whole-project evaluation     median %.1f us (%u units and stages x %u load cases)\n",
+            times[50] * 1e6, 18u, p->cases->len);
+    set = bw_criteria_set_open (p->criteria ? p->criteria : "textbook-ranges", NULL);
+    if (set)
+      {
+        const char *units[] = { "north-sed", "north-rm", "north-floc", "south-floc", "east-sed" };
+        for (guint i = 0; i < G_N_ELEMENTS (units); i++)
+          {
+            BwAutosizeResult r;
+            const double t0 = now_s ();
+            gboolean ok = bw_autosize (p, units[i], set, BW_OBJECTIVE_VOLUME, NULL, NULL, &r, NULL);
+            printf ("autosize %-12s        %.3f s, %" G_GUINT64_FORMAT " designs, %" G_GUINT64_FORMAT
+                    " evaluations%s\n", units[i], now_s () - t0, r.candidates, r.evaluations,
+                    ok ? "" : " (no passing design)");
+            bw_autosize_result_clear (&r);
+          }
+      }
+  }
+  return 0;
+}
