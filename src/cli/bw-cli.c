@@ -30,6 +30,7 @@ static const BwCliCommand *const commands[] = {
   &bw_cli_cmd_review,
   &bw_cli_cmd_diff,
   &bw_cli_cmd_autosize,
+  &bw_cli_cmd_render,
 };
 
 static void

@@ -140,5 +140,6 @@ extern const BwCliCommand bw_cli_cmd_export;
 extern const BwCliCommand bw_cli_cmd_review;
 extern const BwCliCommand bw_cli_cmd_diff;
 extern const BwCliCommand bw_cli_cmd_autosize;
+extern const BwCliCommand bw_cli_cmd_render;
 
 G_END_DECLS

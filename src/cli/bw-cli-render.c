@@ -1,0 +1,157 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-cli-render.c: the project command `render`: one sketch of one unit to a PNG, SVG or PDF. */
+#include "config.h"
+
+#include <errno.h>
+#include <stdio.h>
+#include <string.h>
+
+#include "cli/bw-cli.h"
+#include "draw/bw-export.h"
+#include "draw/bw-sketch.h"
+#include "draw/bw-style.h"
+#include "io/bw-project-xml.h"
+
+/* Default canvas: a wide screen image for PNG (pixels), an A4 landscape page for SVG and PDF
+ * (points). */
+#define PNG_WIDTH 1600
+#define PNG_HEIGHT 1000
+#define PAGE_WIDTH 842
+#define PAGE_HEIGHT 595
+
+static const BwOptSpec render_specs[] = {
+  { "unit", BW_OPT_STRING, 0, NULL, NULL, TRUE, "ID", "id of the unit to draw", NULL },
+  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section", TRUE, "NAME", "which view", NULL },
+  { "format", BW_OPT_CHOICE, 0, NULL, "png|svg|pdf", TRUE, "FORMAT", "file format", NULL },
+  { "size", BW_OPT_STRING, 0, NULL, NULL, FALSE, "WxH",
+    "canvas in pixels (png) or points (svg, pdf); default 1600x1000 or 842x595", NULL },
+  { "style", BW_OPT_CHOICE, 0, NULL, "light|dark", FALSE, "NAME", "colour scheme (default light)",
+    NULL },
+  { "output", BW_OPT_STRING, 0, NULL, NULL, FALSE, "FILE", "the file to write (same as -o FILE)",
+    NULL },
+};
+
+/* "1600x1000" into two whole numbers within the sketch's limits. */
+static gboolean
+parse_size (const char *text, double *w, double *h, const char *command)
+{
+  g_auto (GStrv) parts = g_strsplit_set (text, "xX", -1);
+  gint64 v[2];
+
+  if (g_strv_length (parts) != 2)
+    {
+      bw_cli_usage_error (command, "--size: '%s' is not WIDTHxHEIGHT (e.g. 1600x1000)", text);
+      return FALSE;
+    }
+  for (int i = 0; i < 2; i++)
+    {
+      char *end = NULL;
+      errno = 0;
+      v[i] = g_ascii_strtoll (parts[i], &end, 10);
+      if (*parts[i] == '\0' || !g_ascii_isdigit (*parts[i]) || *end != '\0' || errno == ERANGE)
+        {
+          bw_cli_usage_error (command, "--size: '%s' is not WIDTHxHEIGHT (e.g. 1600x1000)", text);
+          return FALSE;
+        }
+      if (v[i] < BW_SKETCH_MIN_SIDE || v[i] > BW_SKETCH_MAX_SIDE)
+        {
+          bw_cli_usage_error (command, "--size: each side must be %g to %g (got %s)",
+                              BW_SKETCH_MIN_SIDE, BW_SKETCH_MAX_SIDE, text);
+          return FALSE;
+        }
+    }
+  *w = (double) v[0];
+  *h = (double) v[1];
+  return TRUE;
+}
+
+static int
+run_render (BwCliArgs *args)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwProject) p = NULL;
+  const char *project = NULL, *output = NULL;
+  const BwOptValue *ov = bw_cli_get (args, "output");
+  const BwOptValue *size = bw_cli_get (args, "size");
+  const BwOptValue *style_opt = bw_cli_get (args, "style");
+  BwProcessUnit *u;
+  BwSketchView view;
+  BwExportFormat format;
+  double w, h;
+
+  /* The parser hands "-o FILE" over as positional words; pick them out here. */
+  for (guint i = 0; args->positional[i]; i++)
+    {
+      const char *a = args->positional[i];
+      if (strcmp (a, "-o") == 0)
+        {
+          if (args->positional[i + 1] == NULL)
+            return bw_cli_usage_error (args->command, "-o needs a value");
+          if (output != NULL || ov->given)
+            return bw_cli_usage_error (args->command, "-o is given more than once");
+          output = args->positional[++i];
+        }
+      else if (project == NULL)
+        project = a;
+      else
+        return bw_cli_usage_error (args->command, "unexpected argument '%s'", a);
+    }
+  if (ov->given)
+    output = ov->text;
+  if (project == NULL)
+    return bw_cli_usage_error (args->command, "missing PROJECT");
+  if (output == NULL || *output == '\0')
+    return bw_cli_usage_error (args->command, "-o: the output file is required");
+
+  /* The parser already held both to their choices. */
+  if (!bw_sketch_view_from_name (bw_cli_get (args, "view")->text, &view)
+      || !bw_export_format_from_name (bw_cli_get (args, "format")->text, &format))
+    g_assert_not_reached ();
+  if (size->given)
+    {
+      if (!parse_size (size->text, &w, &h, args->command))
+        return BW_CLI_EXIT_USAGE;
+    }
+  else if (format == BW_EXPORT_PNG)
+    w = PNG_WIDTH, h = PNG_HEIGHT;
+  else
+    w = PAGE_WIDTH, h = PAGE_HEIGHT;
+
+  p = bw_project_load (project, &error);
+  if (p == NULL)
+    return bw_cli_usage_error (args->command, "%s", error->message);
+  u = bw_project_find_unit (p, bw_cli_get (args, "unit")->text, NULL);
+  if (u == NULL)
+    return bw_cli_usage_error (args->command, "--unit: no unit '%s' in %s",
+                               bw_cli_get (args, "unit")->text, project);
+  if (!bw_sketch_supports (u->type, view))
+    return bw_cli_usage_error (args->command, "--unit: no %s sketch of '%s', a %s, yet (drawn: "
+                               "rapid-mix tank, rectangular settling basin)",
+                               bw_sketch_view_name (view), u->id, bw_process_type_label (u->type));
+
+  if (!bw_export_sketch (p, u, view, args->units,
+                         style_opt->given && strcmp (style_opt->text, "dark") == 0
+                             ? bw_style_dark () : bw_style_light (),
+                         format, output, w, h, &error))
+    return bw_cli_usage_error (args->command, "%s", error->message);
+
+  if (args->json)
+    {
+      BwJson *j = bw_json_new ();
+      bw_json_string (j, "file", output);
+      bw_json_string (j, "unit", u->id);
+      bw_json_string (j, "view", bw_sketch_view_name (view));
+      bw_json_string (j, "format", bw_export_format_name (format));
+      bw_json_number (j, "width", w);
+      bw_json_number (j, "height", h);
+      bw_json_print_free (j);
+    }
+  return BW_CLI_EXIT_OK;
+}
+
+const BwCliCommand bw_cli_cmd_render = {
+  "render", "Draw one unit of a project to scale (plan or section) as PNG, SVG or PDF.",
+  "PROJECT -o FILE", 1, 3, render_specs, G_N_ELEMENTS (render_specs), run_render,
+  "Drawn so far: rapid-mix tanks and rectangular settling basins, in plan and section.\n"
+  "--units us labels dimensions and the scale bar in feet. --json reports what was written.",
+};
