@@ -361,8 +361,16 @@ read_project (xmlDoc *doc, const char *path, GError **error)
                             : bw_xml_is (i, NS, "description") ? &p->description : NULL;
               if (slot)
                 {
+                  /* Text a person types: a description may run long, the rest are one line. */
+                  const gsize limit = slot == &p->description ? 65536 : 1024;
                   g_free (*slot);
                   *slot = text_of (i);
+                  if (strlen (*slot) > limit)
+                    {
+                      fail (error, path, i, "%s: longer than %" G_GSIZE_FORMAT " characters",
+                            (const char *) i->name, limit);
+                      return NULL;
+                    }
                 }
             }
         }
