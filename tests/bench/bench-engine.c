@@ -11,6 +11,8 @@
 #include <string.h>
 #include <time.h>
 
+#include <glib/gstdio.h>
+
 #include "engine/bw-autosize.h"
 #include "engine/bw-evaluate.h"
 #include "engine/bw-sedimentation.h"
@@ -158,6 +160,74 @@ main (int argc, char **argv)
     printf ("whole-project evaluation     median %.1f us (%u units and stages x %u load cases)\n",
             times[50] * 1e6, 18u, p->cases->len);
     set = bw_criteria_set_open (p->criteria ? p->criteria : "textbook-ranges", NULL);
+    {
+      /* Scale: 50 trains of 20 units each, cloned from the demo's units in turn. */
+      g_autoptr (BwProject) big = bw_project_copy (p);
+      g_autoptr (GPtrArray) pool = g_ptr_array_new ();
+      g_autofree char *tmp = g_build_filename (g_get_tmp_dir (), "bw-bench-scale.bwproj", NULL);
+      double t0;
+      for (guint i = 0; i < p->trains->len; i++)
+        {
+          const BwTrain *t = g_ptr_array_index (p->trains, i);
+          for (guint k = 0; k < t->units->len; k++)
+            g_ptr_array_add (pool, g_ptr_array_index (t->units, k));
+        }
+      g_ptr_array_set_size (big->trains, 0);
+      for (guint t = 0; t < 50; t++)
+        {
+          g_autofree char *tid = g_strdup_printf ("train-%02u", t + 1);
+          BwTrain *tr = bw_train_new (tid, tid);
+          for (guint k = 0; k < 20; k++)
+            {
+              BwProcessUnit *u = bw_process_unit_copy (g_ptr_array_index (pool, (t + k) % pool->len));
+              g_free (u->id);
+              u->id = g_strdup_printf ("t%02u-u%02u", t + 1, k + 1);
+              for (guint s2 = 0; s2 < u->stages->len; s2++)
+                {
+                  BwProcessUnit *st = g_ptr_array_index (u->stages, s2);
+                  g_free (st->id);
+                  st->id = g_strdup_printf ("t%02u-u%02u-s%u", t + 1, k + 1, s2 + 1);
+                }
+              g_ptr_array_add (tr->units, u);
+            }
+          g_ptr_array_add (big->trains, tr);
+        }
+      /* Each train carries 1/50 of the plant flow; scale the flows so each sees the demo's. */
+      for (int f = 0; f < BW_N_FLOW_KINDS; f++)
+        big->basis.flow_m3_s[f] *= 50.0 / 3.0;
+      t0 = now_s ();
+      if (!bw_project_save (big, tmp, &error))
+        fprintf (stderr, "%s\n", error->message);
+      printf ("scale: 50 trains x 20 units  save %.1f ms", (now_s () - t0) * 1e3);
+      t0 = now_s ();
+      {
+        g_autoptr (BwProject) back = bw_project_load (tmp, &error);
+        printf (", load %.1f ms", (now_s () - t0) * 1e3);
+        if (back)
+          {
+            BwResults *r = NULL;
+            GArray *ck = NULL;
+            t0 = now_s ();
+            r = bw_project_evaluate (back, &error);
+            printf (", evaluate %.1f ms", (now_s () - t0) * 1e3);
+            if (r && set)
+              {
+                t0 = now_s ();
+                ck = bw_check_results (r, set);
+                printf (", check %.1f ms (%u checks)", (now_s () - t0) * 1e3, ck->len);
+                g_array_unref (ck);
+              }
+            if (r == NULL && error)
+              printf (" [%s]", error->message);
+            bw_results_free (r);
+          }
+        else
+          printf (" [%s]", error->message);
+      }
+      printf ("\n");
+      g_unlink (tmp);
+      g_clear_error (&error);
+    }
     if (set)
       {
         const char *units[] = { "north-sed", "north-rm", "north-floc", "south-floc", "east-sed" };
