@@ -1,0 +1,34 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-application.h: the Basinwright application: process lifetime, app.* actions, preferences. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+#include "engine/bw-units.h"
+
+G_BEGIN_DECLS
+
+#define BW_TYPE_APPLICATION (bw_application_get_type ())
+G_DECLARE_FINAL_TYPE (BwApplication, bw_application, BW, APPLICATION, GtkApplication)
+
+#define BW_APPLICATION_ID "org.basinwright.Workbench"
+
+/* The caution every window and the About dialog show. */
+#define BW_CAUTION_TEXT                                                                          \
+  "Preliminary design aid. Every result must be checked and verified by a licensed professional " \
+  "engineer before it is used for design or construction; local codes, the design standard in "   \
+  "force and the approving authority govern."
+
+BwApplication *bw_application_new (void);
+
+/* The unit system entries are shown in (app.unit-system: "si" or "us"). */
+BwUnitSystem bw_application_get_unit_system (BwApplication *self);
+void bw_application_set_unit_system (BwApplication *self, BwUnitSystem system);
+
+/* Where autosaves go: $XDG_STATE_HOME/basinwright/autosave, else the user cache dir. */
+char *bw_application_dup_autosave_dir (void);
+
+/* The demo project shipped with Basinwright (source tree or installed data). */
+char *bw_application_dup_demo_path (void);
+
+G_END_DECLS

@@ -1,0 +1,1404 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-window.c: the workbench window: navigator, live results, checks, and the edit plumbing. */
+#include "config.h"
+
+#include "gui/bw-window.h"
+
+#include <math.h>
+
+#include "engine/bw-evaluate.h"
+#include "gui/bw-window-private.h"
+#include "io/bw-criteria-xml.h"
+#include "io/bw-project-xml.h"
+
+#define DEFAULT_CRITERIA "textbook-ranges"
+
+G_DEFINE_FINAL_TYPE (BwWindow, bw_window, GTK_TYPE_APPLICATION_WINDOW)
+
+static void nav_rebuild (BwWindow *self);
+static void nav_refresh (BwWindow *self);
+static void results_rebuild (BwWindow *self);
+static void checks_rebuild (BwWindow *self);
+static void update_actions (BwWindow *self);
+static void counts_refresh (BwWindow *self);
+
+/* --- finding things in the model --- */
+
+/* The train, the flocculator (for a stage) and the index of unit or stage ID. */
+static BwProcessUnit *
+locate (const BwProject *p, const char *id, BwTrain **train, BwProcessUnit **parent, guint *index)
+{
+  if (id == NULL)
+    return NULL;
+  for (guint i = 0; i < p->trains->len; i++)
+    {
+      BwTrain *t = g_ptr_array_index (p->trains, i);
+      for (guint k = 0; k < t->units->len; k++)
+        {
+          BwProcessUnit *u = g_ptr_array_index (t->units, k);
+          if (g_strcmp0 (u->id, id) == 0)
+            {
+              *train = t;
+              *parent = NULL;
+              *index = k;
+              return u;
+            }
+          for (guint s = 0; s < u->stages->len; s++)
+            {
+              BwProcessUnit *st = g_ptr_array_index (u->stages, s);
+              if (g_strcmp0 (st->id, id) == 0)
+                {
+                  *train = t;
+                  *parent = u;
+                  *index = s;
+                  return st;
+                }
+            }
+        }
+    }
+  return NULL;
+}
+
+static int
+element_of (BwWindow *self, const char *id)
+{
+  if (self->results == NULL || id == NULL)
+    return -1;
+  for (guint i = 0; i < self->results->elements->len; i++)
+    {
+      const BwElementResult *e = g_ptr_array_index (self->results->elements, i);
+      if (g_strcmp0 (e->id, id) == 0)
+        return (int) i;
+    }
+  return -1;
+}
+
+static const char *
+status_class (BwCheckStatus s)
+{
+  switch (s)
+    {
+    case BW_CHECK_PASS:
+      return "bw-status-pass";
+    case BW_CHECK_WARN:
+      return "bw-status-warn";
+    case BW_CHECK_FAIL:
+      return "bw-status-fail";
+    default:
+      return "bw-status-na";
+    }
+}
+
+/* Worse first: fail, warn, pass, not applicable. */
+static int
+status_rank (BwCheckStatus s)
+{
+  return s == BW_CHECK_FAIL ? 3 : s == BW_CHECK_WARN ? 2 : s == BW_CHECK_PASS ? 1 : 0;
+}
+
+/* The worst status of the checks on element ID; -1 when none applies. */
+static int
+worst_status (BwWindow *self, const char *id)
+{
+  int e = element_of (self, id), worst = -1;
+
+  if (e < 0 || self->checks == NULL)
+    return -1;
+  for (guint i = 0; i < self->checks->len; i++)
+    {
+      const BwCheck *ck = &g_array_index (self->checks, BwCheck, i);
+      if (ck->element == e && ck->status != BW_CHECK_NOT_APPLICABLE
+          && (worst < 0 || status_rank (ck->status) > status_rank ((BwCheckStatus) worst)))
+        worst = ck->status;
+    }
+  return worst;
+}
+
+/* --- evaluation --- */
+
+static void
+load_criteria (BwWindow *self)
+{
+  const char *want = self->project->criteria ? self->project->criteria : DEFAULT_CRITERIA;
+  g_autoptr (GError) error = NULL;
+
+  if (self->criteria && g_strcmp0 (self->criteria_id, want) == 0)
+    return;
+  g_clear_pointer (&self->criteria, bw_criteria_set_free);
+  g_clear_pointer (&self->criteria_error, g_free);
+  g_free (self->criteria_id);
+  self->criteria_id = g_strdup (want);
+  self->criteria = bw_criteria_set_open (want, &error);
+  if (self->criteria == NULL)
+    self->criteria_error = g_strdup (error->message);
+}
+
+static void
+grade (BwWindow *self)
+{
+  g_clear_pointer (&self->checks, g_array_unref);
+  load_criteria (self);
+  if (self->results && self->criteria)
+    self->checks = bw_check_results (self->results, self->criteria);
+}
+
+/* Re-evaluates from scratch (after undo, redo, open). */
+static void
+evaluate (BwWindow *self)
+{
+  g_autoptr (GError) error = NULL;
+
+  g_clear_pointer (&self->results, bw_results_free);
+  self->results = bw_project_evaluate (self->project, &error);
+  if (self->results == NULL)
+    _bw_window_set_status (self, error->message);
+  else
+    _bw_window_set_status (self, NULL);
+  grade (self);
+}
+
+/* The check every edit must pass: the project still evaluates. Keeps the results. */
+static gboolean
+edit_check (const BwProject *p, gpointer data, GError **error)
+{
+  BwWindow *self = data;
+
+  g_clear_pointer (&self->pending, bw_results_free);
+  self->pending = bw_project_evaluate (p, error);
+  return self->pending != NULL;
+}
+
+gboolean
+bw_window_do_edit (BwWindow *self, BwEdit *edit, GError **error)
+{
+  const BwEdit *done;
+  gboolean structure;
+
+  g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
+  g_return_val_if_fail (edit != NULL, FALSE);
+  if (!bw_edit_stack_do (self->stack, self->project, edit, edit_check, self, error))
+    {
+      g_clear_pointer (&self->pending, bw_results_free);
+      return FALSE;
+    }
+  g_clear_pointer (&self->results, bw_results_free);
+  self->results = g_steal_pointer (&self->pending);
+  _bw_window_set_status (self, NULL);
+  grade (self);
+  done = bw_edit_stack_peek_undo (self->stack);
+  structure = bw_edit_changes_layout (done);
+  self->autosave_dirty = TRUE;
+  _bw_window_model_changed (self, structure);
+  return TRUE;
+}
+
+void
+_bw_window_model_changed (BwWindow *self, gboolean structure)
+{
+  if (structure)
+    nav_rebuild (self);
+  else
+    nav_refresh (self);
+  _bw_window_refresh_editor (self);
+  _bw_window_refresh_basis (self);
+  counts_refresh (self);
+  results_rebuild (self);
+  checks_rebuild (self);
+  _bw_window_update_title (self);
+  update_actions (self);
+  if (self->sketch_area)
+    gtk_widget_queue_draw (GTK_WIDGET (self->sketch_area));
+}
+
+void
+_bw_window_set_status (BwWindow *self, const char *message)
+{
+  GtkWidget *bar = gtk_widget_get_parent (GTK_WIDGET (self->status_label));
+
+  if (message)
+    {
+      gtk_label_set_text (self->status_label, message);
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->status_label), message);
+      gtk_widget_add_css_class (bar, "bw-eval-error");
+    }
+  else
+    {
+      g_autofree char *text = NULL;
+      if (self->results)
+        text = g_strdup_printf ("%u load cases evaluated · %u elements · results update as you type",
+                                self->results->n_cases, self->results->elements->len);
+      gtk_label_set_text (self->status_label, text ? text : "");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->status_label), NULL);
+      gtk_widget_remove_css_class (bar, "bw-eval-error");
+    }
+}
+
+void
+_bw_window_update_title (BwWindow *self)
+{
+  const gboolean modified = bw_edit_stack_is_modified (self->stack);
+  const char *name = self->project->name && self->project->name[0] ? self->project->name : "Untitled plant";
+  g_autofree char *title = g_strdup_printf ("%s%s", modified ? "• " : "", name);
+  g_autofree char *wtitle = g_strdup_printf ("%s — Basinwright", title);
+  g_autofree char *sub = NULL;
+
+  gtk_label_set_text (self->title_label, title);
+  gtk_window_set_title (GTK_WINDOW (self), wtitle);
+  if (self->path)
+    sub = g_strdup_printf ("%s%s", self->path, modified ? " (modified)" : "");
+  else
+    sub = g_strdup (modified ? "not saved yet (modified)" : "not saved yet");
+  gtk_label_set_text (self->subtitle_label, sub);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->subtitle_label), sub);
+}
+
+/* --- the navigator --- */
+
+/* A short name of the kind for the navigator's narrow column (the editor shows the full one). */
+static const char *
+type_short (BwProcessType t)
+{
+  switch (t)
+    {
+    case BW_PROCESS_RAPID_MIX:
+      return "rapid mix";
+    case BW_PROCESS_INLINE_MIXER:
+      return "in-line mixer";
+    case BW_PROCESS_FLOCCULATOR:
+      return "flocculator";
+    case BW_PROCESS_RECTANGULAR_BASIN:
+      return "basin";
+    case BW_PROCESS_CIRCULAR_CLARIFIER:
+      return "clarifier";
+    case BW_PROCESS_PLATE_SETTLER:
+      return "plates/tubes";
+    case BW_STAGE_PADDLE:
+      return "paddles";
+    case BW_STAGE_TURBINE:
+      return "turbine";
+    case BW_STAGE_BAFFLED:
+      return "baffled";
+    default:
+      return bw_process_type_label (t);
+    }
+}
+
+static GtkWidget *
+nav_row (const char *id, const char *train_id, const char *name, const char *kind, int depth,
+         gboolean is_train)
+{
+  GtkWidget *row = gtk_list_box_row_new ();
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+  GtkWidget *dot = gtk_label_new ("");
+  GtkWidget *label = gtk_label_new (name);
+  GtkWidget *type = gtk_label_new (kind);
+  g_autofree char *acc = g_strdup_printf ("%s, %s", name, kind);
+  gtk_widget_set_margin_start (box, 4 + 16 * depth);
+  gtk_label_set_xalign (GTK_LABEL (label), 0);
+  gtk_label_set_ellipsize (GTK_LABEL (label), PANGO_ELLIPSIZE_END);
+  gtk_widget_set_hexpand (label, TRUE);
+  gtk_widget_add_css_class (type, "dim-label");
+  gtk_widget_add_css_class (type, "caption");
+  gtk_label_set_ellipsize (GTK_LABEL (type), PANGO_ELLIPSIZE_END);
+  gtk_label_set_max_width_chars (GTK_LABEL (type), 12);
+  gtk_widget_set_tooltip_text (row, acc);
+  gtk_label_set_width_chars (GTK_LABEL (dot), 1);
+  gtk_box_append (GTK_BOX (box), dot);
+  gtk_box_append (GTK_BOX (box), label);
+  gtk_box_append (GTK_BOX (box), type);
+  gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), box);
+  if (is_train)
+    gtk_widget_add_css_class (row, "bw-train-row");
+  g_object_set_data_full (G_OBJECT (row), "bw-id", g_strdup (id), g_free);
+  g_object_set_data_full (G_OBJECT (row), "bw-train", g_strdup (train_id), g_free);
+  g_object_set_data (G_OBJECT (row), "bw-dot", dot);
+  g_object_set_data (G_OBJECT (row), "bw-name", label);
+  gtk_accessible_update_property (GTK_ACCESSIBLE (row), GTK_ACCESSIBLE_PROPERTY_LABEL, acc, -1);
+  return row;
+}
+
+static void
+set_dot (BwWindow *self, GtkWidget *row)
+{
+  GtkLabel *dot = g_object_get_data (G_OBJECT (row), "bw-dot");
+  const char *id = g_object_get_data (G_OBJECT (row), "bw-id");
+  int s = id ? worst_status (self, id) : -1;
+  static const char *const classes[] = { "bw-dot-pass", "bw-dot-warn", "bw-dot-fail" };
+
+  for (guint i = 0; i < G_N_ELEMENTS (classes); i++)
+    gtk_widget_remove_css_class (GTK_WIDGET (dot), classes[i]);
+  gtk_label_set_text (dot, s < 0 ? "" : "●");
+  if (s >= 0)
+    {
+      gtk_widget_add_css_class (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? "bw-dot-fail"
+                                                  : s == BW_CHECK_WARN ? "bw-dot-warn"
+                                                                       : "bw-dot-pass");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? "a required criterion fails"
+                                                     : s == BW_CHECK_WARN ? "outside a preferred range"
+                                                                          : "every check passes");
+    }
+}
+
+static void
+nav_refresh (BwWindow *self)
+{
+  for (GtkWidget *row = gtk_widget_get_first_child (GTK_WIDGET (self->nav_list)); row;
+       row = gtk_widget_get_next_sibling (row))
+    {
+      const char *id = g_object_get_data (G_OBJECT (row), "bw-id");
+      BwTrain *t;
+      BwProcessUnit *parent, *u;
+      guint idx;
+      if (!GTK_IS_LIST_BOX_ROW (row))
+        continue;
+      if (id && (u = locate (self->project, id, &t, &parent, &idx)))
+        gtk_label_set_text (g_object_get_data (G_OBJECT (row), "bw-name"), u->name ? u->name : u->id);
+      set_dot (self, row);
+    }
+}
+
+static void
+nav_rebuild (BwWindow *self)
+{
+  GtkWidget *child, *select = NULL;
+
+  self->updating = TRUE;
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->nav_list))))
+    gtk_list_box_remove (self->nav_list, child);
+  for (guint i = 0; i < self->project->trains->len; i++)
+    {
+      const BwTrain *t = g_ptr_array_index (self->project->trains, i);
+      GtkWidget *row = nav_row (NULL, t->id, t->name ? t->name : t->id, "train", 0, TRUE);
+      gtk_list_box_append (self->nav_list, row);
+      if (self->selected_id == NULL && g_strcmp0 (self->selected_train, t->id) == 0)
+        select = row;
+      for (guint k = 0; k < t->units->len; k++)
+        {
+          const BwProcessUnit *u = g_ptr_array_index (t->units, k);
+          g_autofree char *kind = u->n_parallel > 1
+                                    ? g_strdup_printf ("%s ×%u", type_short (u->type), u->n_parallel)
+                                    : g_strdup (type_short (u->type));
+          row = nav_row (u->id, t->id, u->name ? u->name : u->id, kind, 1, FALSE);
+          gtk_list_box_append (self->nav_list, row);
+          if (g_strcmp0 (self->selected_id, u->id) == 0)
+            select = row;
+          for (guint s = 0; s < u->stages->len; s++)
+            {
+              const BwProcessUnit *st = g_ptr_array_index (u->stages, s);
+              row = nav_row (st->id, t->id, st->name ? st->name : st->id, type_short (st->type), 2, FALSE);
+              gtk_list_box_append (self->nav_list, row);
+              if (g_strcmp0 (self->selected_id, st->id) == 0)
+                select = row;
+            }
+        }
+    }
+  self->updating = FALSE;
+  nav_refresh (self);
+  if (select == NULL)
+    {
+      /* The selection went away (removed, undone): take the first unit. */
+      select = gtk_widget_get_first_child (GTK_WIDGET (self->nav_list));
+      if (select && gtk_widget_get_next_sibling (select))
+        select = gtk_widget_get_next_sibling (select);
+    }
+  if (select)
+    gtk_list_box_select_row (self->nav_list, GTK_LIST_BOX_ROW (select));
+  else
+    {
+      g_clear_pointer (&self->selected_id, g_free);
+      _bw_window_build_editor (self);
+    }
+}
+
+static void
+nav_row_selected (GtkListBox *list, GtkListBoxRow *row, gpointer data)
+{
+  BwWindow *self = data;
+  const char *id, *train;
+
+  (void) list;
+  if (self->updating || row == NULL)
+    return;
+  id = g_object_get_data (G_OBJECT (row), "bw-id");
+  train = g_object_get_data (G_OBJECT (row), "bw-train");
+  g_free (self->selected_id);
+  self->selected_id = g_strdup (id);
+  g_free (self->selected_train);
+  self->selected_train = g_strdup (train);
+  if (id == NULL)
+    _bw_window_build_editor (self);
+  else
+    _bw_window_refresh_editor (self);
+  counts_refresh (self);
+  results_rebuild (self);
+  update_actions (self);
+  if (self->sketch_area)
+    gtk_widget_queue_draw (GTK_WIDGET (self->sketch_area));
+}
+
+gboolean
+bw_window_select_unit (BwWindow *self, const char *id)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
+  for (GtkWidget *row = gtk_widget_get_first_child (GTK_WIDGET (self->nav_list)); row;
+       row = gtk_widget_get_next_sibling (row))
+    if (GTK_IS_LIST_BOX_ROW (row) && g_strcmp0 (g_object_get_data (G_OBJECT (row), "bw-id"), id) == 0)
+      {
+        gtk_list_box_select_row (self->nav_list, GTK_LIST_BOX_ROW (row));
+        return TRUE;
+      }
+  return FALSE;
+}
+
+const char *
+bw_window_get_selected_id (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return self->selected_id;
+}
+
+/* --- parallel and standby --- */
+
+static void
+counts_refresh (BwWindow *self)
+{
+  BwTrain *t;
+  BwProcessUnit *parent = NULL, *u;
+  guint idx;
+
+  u = locate (self->project, self->selected_id, &t, &parent, &idx);
+  self->updating = TRUE;
+  gtk_widget_set_sensitive (self->counts_grid, u != NULL && parent == NULL);
+  gtk_widget_remove_css_class (GTK_WIDGET (self->parallel_spin), "error");
+  gtk_widget_remove_css_class (GTK_WIDGET (self->standby_spin), "error");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->parallel_spin), "identical units side by side");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->standby_spin),
+                               "of those, how many may be out of service (firm capacity)");
+  gtk_spin_button_set_value (self->parallel_spin, u ? u->n_parallel : 1);
+  gtk_spin_button_set_value (self->standby_spin, u ? u->n_standby : 0);
+  self->updating = FALSE;
+}
+
+static void
+counts_changed (GtkSpinButton *spin, gpointer data)
+{
+  BwWindow *self = data;
+  g_autoptr (GError) error = NULL;
+  g_autofree char *id = g_strdup (self->selected_id);
+  guint par = (guint) gtk_spin_button_get_value_as_int (self->parallel_spin);
+  guint sb = (guint) gtk_spin_button_get_value_as_int (self->standby_spin);
+
+  if (self->updating || id == NULL)
+    return;
+  if (!bw_window_do_edit (self, bw_edit_set_counts (id, par, sb), &error))
+    {
+      gtk_widget_add_css_class (GTK_WIDGET (spin), "error");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (spin), error->message);
+      _bw_window_set_status (self, error->message);
+    }
+}
+
+/* --- results of the selected unit --- */
+
+static void
+grid_clear (GtkGrid *grid)
+{
+  GtkWidget *child;
+
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (grid))))
+    gtk_grid_remove (grid, child);
+}
+
+static GtkWidget *
+cell (GtkGrid *grid, int col, int row, const char *text, const char *css, double xalign)
+{
+  GtkWidget *l = gtk_label_new (text);
+
+  gtk_label_set_xalign (GTK_LABEL (l), (float) xalign);
+  gtk_label_set_selectable (GTK_LABEL (l), FALSE);
+  if (css)
+    gtk_widget_add_css_class (l, css);
+  gtk_grid_attach (grid, l, col, row, 1, 1);
+  return l;
+}
+
+/* A value with its load case in small print beneath it. */
+static void
+value_cell (GtkGrid *grid, int col, int row, const char *value, const char *case_label, gboolean governs)
+{
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+  GtkWidget *v = gtk_label_new (value);
+  GtkWidget *c = gtk_label_new (case_label);
+
+  gtk_label_set_xalign (GTK_LABEL (v), 1);
+  gtk_label_set_xalign (GTK_LABEL (c), 1);
+  gtk_label_set_justify (GTK_LABEL (c), GTK_JUSTIFY_RIGHT);
+  gtk_label_set_wrap (GTK_LABEL (c), TRUE);
+  gtk_label_set_max_width_chars (GTK_LABEL (c), 14);
+  if (governs)
+    gtk_widget_add_css_class (v, "bw-governing");
+  gtk_widget_add_css_class (c, "dim-label");
+  gtk_widget_add_css_class (c, "caption");
+  gtk_box_append (GTK_BOX (box), v);
+  gtk_box_append (GTK_BOX (box), c);
+  g_object_set_data (G_OBJECT (box), "bw-text", v);
+  gtk_grid_attach (grid, box, col, row, 1, 1);
+}
+
+static char *
+case_compact (const BwLoadCase *c)
+{
+  return g_strdup_printf ("%s, %s%s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
+                          c->service == BW_SERVICE_FIRM ? ", firm" : "");
+}
+
+static char *
+case_short (const BwLoadCase *c)
+{
+  return g_strdup_printf ("%s\n%s\n%s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
+                          c->service == BW_SERVICE_FIRM ? "firm" : "all in service");
+}
+
+static char *
+limit_text (const BwCheck *ck, BwUnitSystem units)
+{
+  g_autofree char *v = NULL;
+
+  if (!ck->has_limit)
+    return g_strdup ("");
+  v = bw_units_format (ck->limit, bw_quantity_info (ck->criterion->quantity)->kind, units);
+  return g_strdup_printf ("%s %s%s", ck->limit_is_max ? "≤" : "≥", v,
+                          ck->limit_is_required ? "" : " (preferred)");
+}
+
+/* TRUE when the value of quantity Q in case C is the one that governs a check: the governing
+ * case itself, or a case with exactly the same value (G does not depend on the flow, say). */
+static gboolean
+governs (GArray *gov, const BwElementResult *el, int q, int c)
+{
+  for (guint i = 0; i < gov->len; i++)
+    {
+      const int g = g_array_index (gov, int, i);
+      if (g == c || (g >= 0 && el->values[g].values[q] == el->values[c].values[q]))
+        return TRUE;
+    }
+  return FALSE;
+}
+
+static void
+results_rebuild (BwWindow *self)
+{
+  GtkGrid *g = self->results_grid;
+  const int e = element_of (self, self->selected_id);
+  const gboolean every = gtk_toggle_button_get_active (self->every_case_toggle);
+  const BwElementResult *el;
+  int row = 1;
+
+  grid_clear (g);
+  if (e < 0)
+    {
+      gtk_label_set_text (self->results_heading, "Results");
+      cell (g, 0, 0, self->results ? "Select a unit or stage to see its results."
+                                   : "No results: the project does not evaluate (see the status bar).",
+            "dim-label", 0);
+      return;
+    }
+  el = g_ptr_array_index (self->results->elements, e);
+  {
+    g_autofree char *h = g_strdup_printf ("Results: %s", el->label);
+    gtk_label_set_text (self->results_heading, h);
+    gtk_widget_set_tooltip_text (GTK_WIDGET (self->results_heading),
+                                 "Every enabled load case, from the engine. A value that governs a "
+                                 "criterion is underlined; hover a criterion for its governing case.");
+  }
+  cell (g, 0, 0, "quantity and criteria", "bw-col-head", 0);
+  if (every)
+    for (guint c = 0; c < self->results->n_cases; c++)
+      {
+        g_autofree char *h = case_short (&self->results->cases[c]);
+        cell (g, 1 + (int) c, 0, h, "bw-col-head", 1);
+      }
+  else
+    {
+      cell (g, 1, 0, "smallest", "bw-col-head", 1);
+      cell (g, 2, 0, "largest", "bw-col-head", 1);
+    }
+  for (int q = 0; q < BW_N_QUANTITIES; q++)
+    {
+      const BwQuantityInfo *info = bw_quantity_info ((BwQuantity) q);
+      const int lo = bw_results_extreme_case (self->results, (guint) e, (BwQuantity) q, FALSE);
+      const int hi = bw_results_extreme_case (self->results, (guint) e, (BwQuantity) q, TRUE);
+      GArray *gov = g_array_new (FALSE, FALSE, sizeof (int));
+      GtkWidget *qbox, *qlabel;
+
+      if (lo < 0)
+        {
+          g_array_unref (gov);
+          continue;
+        }
+      /* The quantity, with the criteria that judge it beneath. */
+      qbox = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
+      qlabel = gtk_label_new (info->label);
+      gtk_label_set_xalign (GTK_LABEL (qlabel), 0);
+      gtk_label_set_wrap (GTK_LABEL (qlabel), TRUE);
+      gtk_label_set_max_width_chars (GTK_LABEL (qlabel), 17);
+      gtk_box_append (GTK_BOX (qbox), qlabel);
+      g_object_set_data (G_OBJECT (qbox), "bw-text", qlabel);
+      gtk_grid_attach (g, qbox, 0, row, 1, 1);
+      for (guint i = 0; self->checks && i < self->checks->len; i++)
+        {
+          const BwCheck *ck = &g_array_index (self->checks, BwCheck, i);
+          GtkWidget *box, *chip, *l;
+          g_autofree char *lim = NULL;
+          g_autofree char *tip = NULL;
+          if (ck->element != e || ck->criterion->quantity != (BwQuantity) q)
+            continue;
+          g_array_append_val (gov, ck->governing_case);
+          box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+          chip = gtk_label_new (bw_check_status_name (ck->status));
+          lim = limit_text (ck, self->units);
+          l = gtk_label_new (lim);
+          gtk_widget_add_css_class (l, "caption");
+          gtk_widget_add_css_class (chip, "bw-status");
+          gtk_widget_add_css_class (chip, status_class (ck->status));
+          gtk_box_append (GTK_BOX (box), chip);
+          gtk_box_append (GTK_BOX (box), l);
+          gtk_widget_set_margin_start (box, 10);
+          if (ck->governing_case >= 0)
+            {
+              g_autofree char *cl = bw_load_case_label (&self->results->cases[ck->governing_case]);
+              g_autofree char *gv = bw_units_format (ck->value, info->kind, self->units);
+              g_autofree char *cc = case_compact (&self->results->cases[ck->governing_case]);
+              g_autofree char *line = g_strdup_printf ("governs: %s, %s", gv, cc);
+              GtkWidget *gl = gtk_label_new (line);
+              tip = g_strdup_printf ("%s (%s): %s in %s", ck->criterion->title,
+                                     bw_check_status_name (ck->status), gv, cl);
+              gtk_label_set_xalign (GTK_LABEL (gl), 0);
+              gtk_label_set_wrap (GTK_LABEL (gl), TRUE);
+              gtk_label_set_max_width_chars (GTK_LABEL (gl), 24);
+              gtk_widget_add_css_class (gl, "caption");
+              gtk_widget_add_css_class (gl, "dim-label");
+              gtk_widget_set_margin_start (gl, 10);
+              gtk_box_append (GTK_BOX (qbox), box);
+              gtk_box_append (GTK_BOX (qbox), gl);
+              gtk_widget_set_tooltip_text (gl, tip);
+            }
+          else
+            {
+              tip = g_strdup (ck->criterion->title);
+              gtk_box_append (GTK_BOX (qbox), box);
+            }
+          gtk_widget_set_tooltip_text (box, tip);
+        }
+#define GOVERNS(c) governs (gov, el, q, (c))
+      if (every)
+        for (guint c = 0; c < self->results->n_cases; c++)
+          {
+            const BwQuantitySet *s = &el->values[c];
+            g_autofree char *v = bw_quantity_set_has (s, (BwQuantity) q)
+                                   ? bw_units_format (s->values[q], info->kind, self->units)
+                                   : g_strdup ("—");
+            cell (g, 1 + (int) c, row, v, GOVERNS ((int) c) ? "bw-governing" : NULL, 1);
+          }
+      else
+        {
+          const double vlo = el->values[lo].values[q], vhi = el->values[hi].values[q];
+          g_autofree char *a = bw_units_format (vlo, info->kind, self->units);
+          g_autofree char *b = bw_units_format (vhi, info->kind, self->units);
+          g_autofree char *ca = case_compact (&self->results->cases[lo]);
+          g_autofree char *cb = case_compact (&self->results->cases[hi]);
+          gboolean same = vlo == vhi;
+          value_cell (g, 1, row, a, same ? "the same in every case" : ca, GOVERNS (lo));
+          if (!same)
+            value_cell (g, 2, row, b, cb, GOVERNS (hi));
+        }
+#undef GOVERNS
+      g_array_unref (gov);
+      row++;
+    }
+}
+
+char *
+bw_window_dup_results_text (BwWindow *self)
+{
+  GString *s = g_string_new (NULL);
+  int rows = 0, cols = 0;
+
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  for (GtkWidget *c = gtk_widget_get_first_child (GTK_WIDGET (self->results_grid)); c;
+       c = gtk_widget_get_next_sibling (c))
+    {
+      int col, row;
+      gtk_grid_query_child (self->results_grid, c, &col, &row, NULL, NULL);
+      rows = MAX (rows, row + 1);
+      cols = MAX (cols, col + 1);
+    }
+  for (int r = 0; r < rows; r++)
+    {
+      for (int c = 0; c < cols; c++)
+        {
+          GtkWidget *w = gtk_grid_get_child_at (self->results_grid, c, r);
+          if (c)
+            g_string_append_c (s, '\t');
+          if (w && !GTK_IS_LABEL (w) && g_object_get_data (G_OBJECT (w), "bw-text"))
+            w = g_object_get_data (G_OBJECT (w), "bw-text");
+          if (GTK_IS_LABEL (w))
+            {
+              g_autofree char *t = g_strdup (gtk_label_get_text (GTK_LABEL (w)));
+              g_string_append (s, g_strdelimit (t, "\n\t", ' '));
+            }
+        }
+      g_string_append_c (s, '\n');
+    }
+  return g_string_free (s, FALSE);
+}
+
+/* --- checks --- */
+
+static void
+checks_rebuild (BwWindow *self)
+{
+  GtkWidget *child;
+  guint counts[4] = { 0 };
+  g_autofree char *summary = NULL;
+
+  while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->checks_list))))
+    gtk_list_box_remove (self->checks_list, child);
+  if (self->criteria == NULL)
+    {
+      summary = g_strdup_printf ("No criteria set: %s", self->criteria_error ? self->criteria_error : "none chosen");
+      gtk_label_set_text (self->checks_summary, summary);
+      gtk_label_set_text (self->counts_label, "no checks");
+      return;
+    }
+  if (self->checks == NULL)
+    {
+      gtk_label_set_text (self->checks_summary, "No checks: the project does not evaluate.");
+      gtk_label_set_text (self->counts_label, "no checks");
+      return;
+    }
+  bw_checks_count (self->checks, counts);
+  summary = g_strdup_printf ("Checked against %s: %u pass, %u warn, %u fail, %u not applicable",
+                             self->criteria->name, counts[BW_CHECK_PASS], counts[BW_CHECK_WARN],
+                             counts[BW_CHECK_FAIL], counts[BW_CHECK_NOT_APPLICABLE]);
+  gtk_label_set_text (self->checks_summary, summary);
+  {
+    g_autofree char *c = g_strdup_printf ("%u pass · %u warn · %u fail", counts[BW_CHECK_PASS],
+                                          counts[BW_CHECK_WARN], counts[BW_CHECK_FAIL]);
+    gtk_label_set_text (self->counts_label, c);
+  }
+  for (guint i = 0; i < self->checks->len; i++)
+    {
+      const BwCheck *ck = &g_array_index (self->checks, BwCheck, i);
+      const BwCriterion *cr = ck->criterion;
+      const BwElementResult *el = ck->element >= 0 ? g_ptr_array_index (self->results->elements, ck->element) : NULL;
+      GtkWidget *row = gtk_list_box_row_new ();
+      GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
+      GtkWidget *text = gtk_box_new (GTK_ORIENTATION_VERTICAL, 1);
+      GtkWidget *chip = gtk_label_new (bw_check_status_name (ck->status));
+      g_autofree char *head = g_strdup_printf ("%s — %s", cr->title, el ? el->label : "no element of that kind");
+      g_autofree char *value = ck->status != BW_CHECK_NOT_APPLICABLE && el
+                                 ? bw_units_format (ck->value, bw_quantity_info (cr->quantity)->kind, self->units)
+                                 : g_strdup ("—");
+      g_autofree char *lim = limit_text (ck, self->units);
+      g_autofree char *cl = ck->governing_case >= 0 ? bw_load_case_label (&self->results->cases[ck->governing_case])
+                                                    : g_strdup ("no load case");
+      g_autofree char *detail = g_strdup_printf ("value %s   limit %s   governing case: %s", value,
+                                                 lim[0] ? lim : "—", cl);
+      g_autofree char *cite = g_strdup_printf ("%s, %s, %s%s", cr->document ? cr->document : "",
+                                               cr->edition ? cr->edition : "", cr->clause ? cr->clause : "",
+                                               cr->provenance == BW_PROVENANCE_MEMORY ? " (from memory — verify)" : "");
+      g_autofree char *acc = g_strdup_printf ("%s: %s. %s", bw_check_status_name (ck->status), head, detail);
+      GtkWidget *l;
+
+      gtk_widget_add_css_class (chip, "bw-status");
+      gtk_widget_add_css_class (chip, status_class (ck->status));
+      gtk_label_set_width_chars (GTK_LABEL (chip), 4);
+      gtk_widget_set_valign (chip, GTK_ALIGN_START);
+      gtk_box_append (GTK_BOX (box), chip);
+      l = gtk_label_new (head);
+      gtk_label_set_xalign (GTK_LABEL (l), 0);
+      gtk_label_set_wrap (GTK_LABEL (l), TRUE);
+      gtk_widget_add_css_class (l, "heading");
+      gtk_box_append (GTK_BOX (text), l);
+      l = gtk_label_new (detail);
+      gtk_label_set_xalign (GTK_LABEL (l), 0);
+      gtk_label_set_wrap (GTK_LABEL (l), TRUE);
+      gtk_box_append (GTK_BOX (text), l);
+      l = gtk_label_new (cite);
+      gtk_label_set_xalign (GTK_LABEL (l), 0);
+      gtk_label_set_wrap (GTK_LABEL (l), TRUE);
+      gtk_widget_add_css_class (l, "bw-citation");
+      gtk_box_append (GTK_BOX (text), l);
+      gtk_widget_set_hexpand (text, TRUE);
+      gtk_box_append (GTK_BOX (box), text);
+      gtk_widget_set_margin_top (box, 4);
+      gtk_widget_set_margin_bottom (box, 4);
+      gtk_widget_set_margin_start (box, 6);
+      gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), box);
+      if (el)
+        g_object_set_data_full (G_OBJECT (row), "bw-id",
+                                g_strdup (el->stage ? el->stage->id : el->unit->id), g_free);
+      gtk_accessible_update_property (GTK_ACCESSIBLE (row), GTK_ACCESSIBLE_PROPERTY_LABEL, acc, -1);
+      gtk_list_box_append (self->checks_list, row);
+    }
+}
+
+static void
+check_activated (GtkListBox *list, GtkListBoxRow *row, gpointer data)
+{
+  BwWindow *self = data;
+  const char *id = g_object_get_data (G_OBJECT (row), "bw-id");
+
+  (void) list;
+  if (id && bw_window_select_unit (self, id))
+    bw_window_show_page (self, "unit");
+}
+
+/* --- the sketch page --- */
+
+static void
+sketch_draw (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer data)
+{
+  (void) area;
+  (void) cr;
+  (void) width;
+  (void) height;
+  (void) data;
+  /* DRAW-LAYER HOOK: when src/draw lands, build its style from the widget's colours and call its
+   * sketch painter for the selected unit here (one painter for screen and files, STYLE.md §5).
+   * Until then this page paints nothing of its own. */
+}
+
+/* --- actions --- */
+
+static void
+update_actions (BwWindow *self)
+{
+  BwTrain *t;
+  BwProcessUnit *parent = NULL, *u;
+  guint idx = 0;
+  gboolean has = FALSE;
+
+  u = locate (self->project, self->selected_id, &t, &parent, &idx);
+  has = u != NULL;
+#define ENABLE(name, on) gtk_widget_action_set_enabled (GTK_WIDGET (self), "win." name, on)
+  ENABLE ("undo", bw_edit_stack_can_undo (self->stack));
+  ENABLE ("redo", bw_edit_stack_can_redo (self->stack));
+  ENABLE ("remove-unit", has);
+  ENABLE ("duplicate-unit", has);
+  ENABLE ("move-up", has && idx > 0);
+  ENABLE ("move-down", has && idx + 1 < (parent ? parent->stages->len : t->units->len));
+#undef ENABLE
+}
+
+static void
+report (BwWindow *self, GError *error)
+{
+  if (error)
+    _bw_window_set_status (self, error->message);
+}
+
+static void
+action_undo (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+
+  (void) name;
+  (void) v;
+  if (bw_edit_stack_undo (self->stack, self->project))
+    {
+      evaluate (self);
+      self->autosave_dirty = TRUE;
+      _bw_window_build_editor (self);
+      _bw_window_model_changed (self, TRUE);
+    }
+}
+
+static void
+action_redo (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+
+  (void) name;
+  (void) v;
+  if (bw_edit_stack_redo (self->stack, self->project))
+    {
+      evaluate (self);
+      self->autosave_dirty = TRUE;
+      _bw_window_build_editor (self);
+      _bw_window_model_changed (self, TRUE);
+    }
+}
+
+static void
+select_after_edit (BwWindow *self)
+{
+  const BwEdit *e = bw_edit_stack_peek_undo (self->stack);
+  const char *id = e ? bw_edit_get_unit_id (e) : NULL;
+
+  if (id)
+    bw_window_select_unit (self, id);
+}
+
+static void
+action_add_unit (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+  g_autoptr (GError) error = NULL;
+  BwProcessType type;
+  BwTrain *t = NULL;
+  BwProcessUnit *parent = NULL, *u;
+  guint idx = 0;
+
+  (void) name;
+  if (!bw_process_type_from_name (g_variant_get_string (v, NULL), &type))
+    return;
+  u = locate (self->project, self->selected_id, &t, &parent, &idx);
+  if (bw_process_type_is_stage (type))
+    {
+      const BwProcessUnit *floc = parent ? parent : u;
+      if (floc == NULL || floc->type != BW_PROCESS_FLOCCULATOR)
+        {
+          _bw_window_set_status (self, "add a stage: select a flocculator or one of its stages first");
+          return;
+        }
+      if (!bw_window_do_edit (self, bw_edit_add_unit (NULL, floc->id, parent ? idx + 1 : floc->stages->len, type),
+                              &error))
+        report (self, error);
+    }
+  else
+    {
+      const char *train = t ? t->id : self->selected_train;
+      guint pos = G_MAXUINT;
+      if (train == NULL && self->project->trains->len > 0)
+        train = ((BwTrain *) g_ptr_array_index (self->project->trains, 0))->id;
+      if (u)
+        {
+          if (parent)
+            {
+              BwTrain *t2;
+              BwProcessUnit *p2;
+              locate (self->project, parent->id, &t2, &p2, &idx);
+            }
+          pos = idx + 1;
+        }
+      else if (train == NULL)
+        {
+          _bw_window_set_status (self, "add a unit: the project has no train");
+          return;
+        }
+      if (!bw_window_do_edit (self, bw_edit_add_unit (train, NULL, pos, type), &error))
+        report (self, error);
+    }
+  if (error == NULL)
+    select_after_edit (self);
+}
+
+static void
+action_remove_unit (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+  g_autoptr (GError) error = NULL;
+
+  (void) name;
+  (void) v;
+  if (self->selected_id && !bw_window_do_edit (self, bw_edit_remove_unit (self->selected_id), &error))
+    report (self, error);
+}
+
+static void
+action_duplicate_unit (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+  g_autoptr (GError) error = NULL;
+
+  (void) name;
+  (void) v;
+  if (self->selected_id == NULL)
+    return;
+  if (!bw_window_do_edit (self, bw_edit_duplicate_unit (self->selected_id), &error))
+    report (self, error);
+  else
+    select_after_edit (self);
+}
+
+static void
+action_move (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+  g_autoptr (GError) error = NULL;
+
+  (void) v;
+  if (self->selected_id == NULL)
+    return;
+  if (!bw_window_do_edit (self, bw_edit_move_unit (self->selected_id, g_str_has_suffix (name, "move-up") ? -1 : 1),
+                          &error))
+    report (self, error);
+}
+
+static void
+action_page (GtkWidget *w, const char *name, GVariant *v)
+{
+  (void) name;
+  bw_window_show_page (BW_WINDOW (w), g_variant_get_string (v, NULL));
+}
+
+static void
+action_save (GtkWidget *w, const char *name, GVariant *v)
+{
+  (void) name;
+  (void) v;
+  _bw_window_save (BW_WINDOW (w));
+}
+
+static void
+action_save_as (GtkWidget *w, const char *name, GVariant *v)
+{
+  (void) name;
+  (void) v;
+  _bw_window_save_as (BW_WINDOW (w));
+}
+
+static void
+action_close (GtkWidget *w, const char *name, GVariant *v)
+{
+  (void) name;
+  (void) v;
+  gtk_window_close (GTK_WINDOW (w));
+}
+
+void
+bw_window_show_page (BwWindow *self, const char *name)
+{
+  g_return_if_fail (BW_IS_WINDOW (self));
+  if (gtk_stack_get_child_by_name (self->page_stack, name))
+    gtk_stack_set_visible_child_name (self->page_stack, name);
+}
+
+/* --- unit system --- */
+
+static void
+unit_system_changed (GActionGroup *group, const char *name, GVariant *state, gpointer data)
+{
+  BwWindow *self = data;
+  BwUnitSystem s;
+
+  (void) group;
+  (void) name;
+  if (!bw_unit_system_from_name (g_variant_get_string (state, NULL), &s) || s == self->units)
+    return;
+  self->units = s;
+  _bw_window_refresh_editor (self);
+  _bw_window_refresh_basis (self);
+  results_rebuild (self);
+  checks_rebuild (self);
+}
+
+/* --- recent files --- */
+
+static void
+recent_rebuild (BwWindow *self)
+{
+  GtkRecentManager *rm = gtk_recent_manager_get_default ();
+  GList *items = gtk_recent_manager_get_items (rm);
+  guint n = 0;
+
+  g_menu_remove_all (self->recent_menu);
+  for (GList *l = items; l && n < 8; l = l->next)
+    {
+      GtkRecentInfo *info = l->data;
+      const char *uri = gtk_recent_info_get_uri (info);
+      g_autofree char *path = NULL;
+      g_autofree char *detailed = NULL;
+      g_autofree char *base = NULL;
+      if (!g_str_has_suffix (uri, ".bwproj") || !gtk_recent_info_exists (info))
+        continue;
+      path = g_filename_from_uri (uri, NULL, NULL);
+      if (path == NULL)
+        continue;
+      base = g_path_get_basename (path);
+      detailed = g_action_print_detailed_name ("app.open-recent", g_variant_new_string (path));
+      g_menu_append (self->recent_menu, base, detailed);
+      n++;
+    }
+  if (n == 0)
+    g_menu_append (self->recent_menu, "(no recent projects)", "app.open-recent-none");
+  g_list_free_full (items, (GDestroyNotify) gtk_recent_info_unref);
+}
+
+static void
+recent_changed (GtkRecentManager *rm, gpointer data)
+{
+  (void) rm;
+  recent_rebuild (data);
+}
+
+/* --- model replacement --- */
+
+void
+_bw_window_replace_project (BwWindow *self, BwProject *p, const char *path, gboolean saved)
+{
+  g_clear_pointer (&self->results, bw_results_free);
+  g_clear_pointer (&self->checks, g_array_unref);
+  bw_project_free (self->project);
+  self->project = p;
+  g_free (self->path);
+  self->path = g_strdup (path);
+  bw_edit_stack_clear (self->stack, saved);
+  g_clear_pointer (&self->selected_id, g_free);
+  g_clear_pointer (&self->selected_train, g_free);
+  evaluate (self);
+  _bw_window_build_basis (self);
+  _bw_window_model_changed (self, TRUE);
+  if (path)
+    {
+      g_autofree char *uri = g_filename_to_uri (path, NULL, NULL);
+      if (uri)
+        gtk_recent_manager_add_item (gtk_recent_manager_get_default (), uri);
+    }
+}
+
+gboolean
+bw_window_open_path (BwWindow *self, const char *path, GError **error)
+{
+  BwProject *p;
+
+  g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
+  g_return_val_if_fail (path != NULL, FALSE);
+  p = bw_project_load (path, error);
+  if (p == NULL)
+    return FALSE;
+  _bw_window_forget_autosave (self);
+  _bw_window_replace_project (self, p, path, TRUE);
+  return TRUE;
+}
+
+void
+bw_window_take_project (BwWindow *self, BwProject *p)
+{
+  g_return_if_fail (BW_IS_WINDOW (self));
+  g_return_if_fail (p != NULL);
+  _bw_window_replace_project (self, p, NULL, TRUE);
+}
+
+gboolean
+bw_window_is_pristine (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
+  return self->path == NULL && !bw_edit_stack_can_undo (self->stack) && !bw_edit_stack_is_modified (self->stack)
+         && g_strcmp0 (self->project->name, "Untitled plant") == 0;
+}
+
+gboolean
+bw_window_is_modified (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
+  return bw_edit_stack_is_modified (self->stack);
+}
+
+const char *
+bw_window_get_path (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return self->path;
+}
+
+const BwProject *
+bw_window_get_project (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return self->project;
+}
+
+GtkWidget *
+bw_window_get_checks_list (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return GTK_WIDGET (self->checks_list);
+}
+
+GtkWidget *
+bw_window_get_navigator (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return GTK_WIDGET (self->nav_list);
+}
+
+/* A blank plant: one empty train and the one flow the design basis needs. */
+static BwProject *
+blank_project (void)
+{
+  BwProject *p = bw_project_new ();
+
+  p->name = g_strdup ("Untitled plant");
+  p->criteria = g_strdup (DEFAULT_CRITERIA);
+  p->basis.flow_m3_s[BW_FLOW_MAXIMUM_DAY] = 0.1;
+  p->basis.flows_given = 1u << BW_FLOW_MAXIMUM_DAY;
+  g_ptr_array_add (p->trains, bw_train_new ("train-1", "Train 1"));
+  bw_project_generate_cases (p);
+  return p;
+}
+
+/* --- GObject --- */
+
+static void
+bw_window_dispose (GObject *object)
+{
+  BwWindow *self = BW_WINDOW (object);
+
+  _bw_window_files_dispose (self);
+  g_signal_handlers_disconnect_by_data (gtk_recent_manager_get_default (), self);
+  gtk_widget_dispose_template (GTK_WIDGET (self), BW_TYPE_WINDOW);
+  G_OBJECT_CLASS (bw_window_parent_class)->dispose (object);
+}
+
+static void
+bw_window_finalize (GObject *object)
+{
+  BwWindow *self = BW_WINDOW (object);
+
+  g_clear_pointer (&self->fields, g_ptr_array_unref);
+  g_clear_pointer (&self->basis_fields, g_ptr_array_unref);
+  g_clear_pointer (&self->results, bw_results_free);
+  g_clear_pointer (&self->pending, bw_results_free);
+  g_clear_pointer (&self->checks, g_array_unref);
+  g_clear_pointer (&self->criteria, bw_criteria_set_free);
+  g_clear_pointer (&self->criteria_sets, g_ptr_array_unref);
+  g_clear_pointer (&self->stack, bw_edit_stack_free);
+  g_clear_pointer (&self->project, bw_project_free);
+  g_free (self->criteria_error);
+  g_free (self->criteria_id);
+  g_free (self->path);
+  g_free (self->selected_id);
+  g_free (self->selected_train);
+  g_free (self->autosave_path);
+  g_free (self->recovery_path);
+  g_free (self->editor_id);
+  G_OBJECT_CLASS (bw_window_parent_class)->finalize (object);
+}
+
+static void
+bw_window_class_init (BwWindowClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+  GtkWindowClass *window_class = GTK_WINDOW_CLASS (klass);
+
+  object_class->dispose = bw_window_dispose;
+  object_class->finalize = bw_window_finalize;
+  window_class->close_request = _bw_window_close_request;
+
+  gtk_widget_class_set_template_from_resource (widget_class, "/org/basinwright/Workbench/bw-window.ui");
+#define BIND(name) gtk_widget_class_bind_template_child (widget_class, BwWindow, name)
+  BIND (title_label);
+  BIND (subtitle_label);
+  BIND (caution_label);
+  BIND (recent_menu);
+  BIND (add_button);
+  BIND (recovery_revealer);
+  BIND (recovery_label);
+  BIND (nav_list);
+  BIND (parallel_spin);
+  BIND (standby_spin);
+  BIND (counts_grid);
+  BIND (page_stack);
+  BIND (unit_heading);
+  BIND (unit_type_label);
+  BIND (editor_grid);
+  BIND (results_heading);
+  BIND (every_case_toggle);
+  BIND (results_grid);
+  BIND (checks_summary);
+  BIND (checks_list);
+  BIND (basis_grid);
+  BIND (cases_list);
+  BIND (criteria_dropdown);
+  BIND (criteria_note);
+  BIND (sketch_area);
+  BIND (status_label);
+  BIND (counts_label);
+#undef BIND
+
+  gtk_widget_class_install_action (widget_class, "win.undo", NULL, action_undo);
+  gtk_widget_class_install_action (widget_class, "win.redo", NULL, action_redo);
+  gtk_widget_class_install_action (widget_class, "win.save", NULL, action_save);
+  gtk_widget_class_install_action (widget_class, "win.save-as", NULL, action_save_as);
+  gtk_widget_class_install_action (widget_class, "win.close", NULL, action_close);
+  gtk_widget_class_install_action (widget_class, "win.add-unit", "s", action_add_unit);
+  gtk_widget_class_install_action (widget_class, "win.remove-unit", NULL, action_remove_unit);
+  gtk_widget_class_install_action (widget_class, "win.duplicate-unit", NULL, action_duplicate_unit);
+  gtk_widget_class_install_action (widget_class, "win.move-up", NULL, action_move);
+  gtk_widget_class_install_action (widget_class, "win.move-down", NULL, action_move);
+  gtk_widget_class_install_action (widget_class, "win.page", "s", action_page);
+  _bw_window_files_class_init (widget_class);
+}
+
+static gboolean
+popup_add_menu (GtkWidget *widget, GVariant *args, gpointer data)
+{
+  (void) widget;
+  (void) args;
+  gtk_menu_button_popup (BW_WINDOW (data)->add_button);
+  return TRUE;
+}
+
+static void
+bw_window_init (BwWindow *self)
+{
+  GtkShortcutController *sc;
+  static const struct { guint key; GdkModifierType mods; const char *action; } nav_keys[] = {
+    { GDK_KEY_Delete, 0, "win.remove-unit" },
+    { GDK_KEY_KP_Delete, 0, "win.remove-unit" },
+    { GDK_KEY_Up, GDK_ALT_MASK, "win.move-up" },
+    { GDK_KEY_Down, GDK_ALT_MASK, "win.move-down" },
+  };
+
+  gtk_widget_init_template (GTK_WIDGET (self));
+  self->project = blank_project ();
+  self->stack = bw_edit_stack_new ();
+  self->fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
+  self->basis_fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
+  self->units = BW_UNIT_SYSTEM_SI;
+  gtk_label_set_text (self->caution_label, BW_CAUTION_TEXT);
+
+  sc = GTK_SHORTCUT_CONTROLLER (gtk_shortcut_controller_new ());
+  for (guint i = 0; i < G_N_ELEMENTS (nav_keys); i++)
+    gtk_shortcut_controller_add_shortcut (sc, gtk_shortcut_new (gtk_keyval_trigger_new (nav_keys[i].key, nav_keys[i].mods),
+                                                                gtk_named_action_new (nav_keys[i].action)));
+  gtk_shortcut_controller_add_shortcut (sc, gtk_shortcut_new (gtk_keyval_trigger_new (GDK_KEY_Insert, 0),
+                                                              gtk_callback_action_new (popup_add_menu, self, NULL)));
+  gtk_widget_add_controller (GTK_WIDGET (self->nav_list), GTK_EVENT_CONTROLLER (sc));
+
+  g_signal_connect (self->nav_list, "row-selected", G_CALLBACK (nav_row_selected), self);
+  g_signal_connect (self->parallel_spin, "value-changed", G_CALLBACK (counts_changed), self);
+  g_signal_connect (self->standby_spin, "value-changed", G_CALLBACK (counts_changed), self);
+  g_signal_connect_swapped (self->every_case_toggle, "toggled", G_CALLBACK (results_rebuild), self);
+  g_signal_connect (self->checks_list, "row-activated", G_CALLBACK (check_activated), self);
+  gtk_drawing_area_set_draw_func (self->sketch_area, sketch_draw, self, NULL);
+  g_signal_connect (gtk_recent_manager_get_default (), "changed", G_CALLBACK (recent_changed), self);
+  recent_rebuild (self);
+
+  self->criteria_sets = bw_criteria_find_all (NULL);
+  _bw_window_files_init (self);
+  evaluate (self);
+  _bw_window_build_basis (self);
+  _bw_window_model_changed (self, TRUE);
+}
+
+BwWindow *
+bw_window_new (BwApplication *app)
+{
+  BwWindow *self;
+
+  g_return_val_if_fail (BW_IS_APPLICATION (app), NULL);
+  self = g_object_new (BW_TYPE_WINDOW, "application", app, "show-menubar", FALSE, NULL);
+  self->units = bw_application_get_unit_system (app);
+  g_signal_connect_object (app, "action-state-changed::unit-system", G_CALLBACK (unit_system_changed),
+                           self, 0);
+  _bw_window_refresh_editor (self);
+  _bw_window_refresh_basis (self);
+  results_rebuild (self);
+  checks_rebuild (self);
+  return self;
+}
