@@ -1,5 +1,6 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* bw-cli-render.c: the project command `render`: one sketch of one unit to a PNG, SVG or PDF. */
+/* bw-cli-render.c: the project command `render`: one sketch of one unit (or a train's schematic)
+ * to a PNG, SVG or PDF. */
 #include "config.h"
 
 #include <errno.h>
@@ -21,7 +22,8 @@
 
 static const BwOptSpec render_specs[] = {
   { "unit", BW_OPT_STRING, 0, NULL, NULL, TRUE, "ID", "id of the unit to draw", NULL },
-  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section", TRUE, "NAME", "which view", NULL },
+  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section|schematic", TRUE, "NAME",
+    "which view (schematic: the unit's train with its results)", NULL },
   { "format", BW_OPT_CHOICE, 0, NULL, "png|svg|pdf", TRUE, "FORMAT", "file format", NULL },
   { "size", BW_OPT_STRING, 0, NULL, NULL, FALSE, "WxH",
     "canvas in pixels (png) or points (svg, pdf); default 1600x1000 or 842x595", NULL },
@@ -125,9 +127,12 @@ run_render (BwCliArgs *args)
     return bw_cli_usage_error (args->command, "--unit: no unit '%s' in %s",
                                bw_cli_get (args, "unit")->text, project);
   if (!bw_sketch_supports (u->type, view))
-    return bw_cli_usage_error (args->command, "--unit: no %s sketch of '%s', a %s, yet (drawn: "
-                               "rapid-mix tank, rectangular settling basin)",
-                               bw_sketch_view_name (view), u->id, bw_process_type_label (u->type));
+    {
+      g_autofree char *views = bw_sketch_views_of (u->type);
+      return bw_cli_usage_error (args->command, "--view: no %s drawing of '%s', a %s (its views: "
+                                 "%s)", bw_sketch_view_name (view), u->id,
+                                 bw_process_type_label (u->type), views);
+    }
 
   if (!bw_export_sketch (p, u, view, args->units,
                          style_opt->given && strcmp (style_opt->text, "dark") == 0
@@ -150,8 +155,10 @@ run_render (BwCliArgs *args)
 }
 
 const BwCliCommand bw_cli_cmd_render = {
-  "render", "Draw one unit of a project to scale (plan or section) as PNG, SVG or PDF.",
+  "render", "Draw one unit of a project to scale (plan or section), or its train, as PNG, SVG or PDF.",
   "PROJECT -o FILE", 1, 3, render_specs, G_N_ELEMENTS (render_specs), run_render,
-  "Drawn so far: rapid-mix tanks and rectangular settling basins, in plan and section.\n"
+  "plan and section: rapid-mix tanks, flocculators (or one stage, by its id), rectangular\n"
+  "basins and circular clarifiers; section: plate and tube settlers. schematic: any unit's train,\n"
+  "with the engine's results at the maximum-day flow (coldest, all in service).\n"
   "--units us labels dimensions and the scale bar in feet. --json reports what was written.",
 };

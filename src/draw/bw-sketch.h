@@ -1,5 +1,6 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* bw-sketch.h: process units drawn to scale (plan and section), with a scale bar and dimensions. */
+/* bw-sketch.h: process units drawn to scale (plan and section), with a scale bar and dimensions,
+ * and a train drawn as a schematic of blocks carrying the engine's key results. */
 #pragma once
 
 #include <cairo.h>
@@ -28,14 +29,18 @@ typedef enum
 {
   BW_SKETCH_PLAN,    /* seen from above */
   BW_SKETCH_SECTION, /* cut vertically along the flow (or through the tank's axis) */
+  BW_SKETCH_SCHEMATIC, /* the unit's train as blocks in flow order, with key results; not to scale */
   BW_N_SKETCH_VIEWS
 } BwSketchView;
 
-const char *bw_sketch_view_name (BwSketchView view); /* "plan", "section" */
+const char *bw_sketch_view_name (BwSketchView view); /* "plan", "section", "schematic" */
 gboolean bw_sketch_view_from_name (const char *name, BwSketchView *out);
 
-/* TRUE when VIEW of a unit of TYPE can be drawn. */
+/* TRUE when VIEW of a unit (or flocculator stage) of TYPE can be drawn. */
 gboolean bw_sketch_supports (BwProcessType type, BwSketchView view);
+
+/* The views of TYPE that can be drawn, joined by "|" ("plan|section|schematic"); free it. */
+char *bw_sketch_views_of (BwProcessType type);
 
 /* Smallest and largest canvas side a sketch accepts, in page units. */
 #define BW_SKETCH_MIN_SIDE 200.0
@@ -52,20 +57,25 @@ typedef struct
   double world_x1, world_y1;
   double text_size;              /* body text size chosen for this canvas, page units */
   double bar_length_m;           /* the scale bar's labelled length, SI (a round number of
-                                    metres, or of feet in US units) */
+                                    metres, or of feet in US units); 0 for a schematic, which is
+                                    not to scale and has no bar */
   char bar_label[32];            /* its label: "10 m", "50 ft" */
   double bar_x, bar_y;           /* top left of the bar's solid band, page units */
   double bar_width, bar_height;  /* the band: bar_width = scale * bar_length_m */
 } BwSketchGeometry;
 
 /* Lays out VIEW of unit U of project P on a WIDTH x HEIGHT canvas: the same computation the
- * painter makes, for tests and for hit-testing. */
+ * painter makes, for tests and for hit-testing. U may be a flocculator stage (its compartment
+ * alone is drawn, in its flocculator's width and depth). For BW_SKETCH_SCHEMATIC, U names the
+ * train drawn (any unit or stage of it); the world box is then the page box (scale 1). */
 gboolean bw_sketch_layout (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
                            BwUnitSystem units, const BwStyle *style, double width, double height,
                            BwSketchGeometry *out, GError **error);
 
 /* Paints VIEW of unit U of project P to scale on CR, filling the WIDTH x HEIGHT page box at
  * CR's current origin: title, the unit, labelled dimensions in UNITS, a scale bar and a note.
+ * The schematic evaluates P with bw_project_evaluate and shows the results of the maximum-day
+ * case (coldest water, all units in service); P must then validate and evaluate.
  * Nothing is drawn outside the box. CR's state is restored on return. Errors: an unsupported
  * unit or view, a canvas size outside the limits, or CR in an error state. */
 gboolean bw_sketch_paint (const BwProject *p, const BwProcessUnit *u, BwSketchView view,

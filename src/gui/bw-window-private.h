@@ -112,6 +112,9 @@ void _bw_window_refresh_basis (BwWindow *self);
 BwField *_bw_window_find_field (BwWindow *self, const char *id);
 void _bw_field_free (BwField *f);
 
+/* bw-window-sketch.c: the drawing page (sketches and charts, zoom, pan, export). */
+void _bw_window_sketch_init (BwWindow *self);
+
 /* bw-window-files.c: save, save as, close prompt, autosave, recovery. */
 void _bw_window_files_init (BwWindow *self);
 void _bw_window_files_dispose (BwWindow *self);

@@ -855,21 +855,6 @@ check_activated (GtkListBox *list, GtkListBoxRow *row, gpointer data)
     bw_window_show_page (self, "unit");
 }
 
-/* --- the sketch page --- */
-
-static void
-sketch_draw (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer data)
-{
-  (void) area;
-  (void) cr;
-  (void) width;
-  (void) height;
-  (void) data;
-  /* DRAW-LAYER HOOK: when src/draw lands, build its style from the widget's colours and call its
-   * sketch painter for the selected unit here (one painter for screen and files, STYLE.md §5).
-   * Until then this page paints nothing of its own. */
-}
-
 /* --- actions --- */
 
 static void
@@ -1375,7 +1360,7 @@ bw_window_init (BwWindow *self)
   g_signal_connect (self->standby_spin, "value-changed", G_CALLBACK (counts_changed), self);
   g_signal_connect_swapped (self->every_case_toggle, "toggled", G_CALLBACK (results_rebuild), self);
   g_signal_connect (self->checks_list, "row-activated", G_CALLBACK (check_activated), self);
-  gtk_drawing_area_set_draw_func (self->sketch_area, sketch_draw, self, NULL);
+  _bw_window_sketch_init (self);
   g_signal_connect (gtk_recent_manager_get_default (), "changed", G_CALLBACK (recent_changed), self);
   recent_rebuild (self);
 

@@ -11,6 +11,7 @@
 #include "draw/bw-sketch.h"
 #include "draw/bw-style.h"
 #include "engine/bw-error.h"
+#include "engine/bw-evaluate.h"
 #include "io/bw-project-xml.h"
 
 typedef struct
@@ -19,17 +20,30 @@ typedef struct
   BwSketchView view;
 } Case;
 
-/* Every drawn view of the demo project: a square and a round rapid-mix tank with two impeller
- * types, and the rectangular basin. */
+/* Every drawn view of every unit of the demo project: a square and a round rapid-mix tank with
+ * two impeller types, the rectangular basin, the three flocculators (turbine and paddles,
+ * baffles around the end, paddles), one stage of each kind alone, the circular clarifier, the
+ * plate settler, and each train's schematic (asked for by a unit, an in-line mixer and a
+ * stage). */
 static const Case cases[] = {
-  { "north-sed", BW_SKETCH_PLAN }, { "north-sed", BW_SKETCH_SECTION },
-  { "north-rm", BW_SKETCH_PLAN },  { "north-rm", BW_SKETCH_SECTION },
-  { "east-rm", BW_SKETCH_PLAN },   { "east-rm", BW_SKETCH_SECTION },
+  { "north-sed", BW_SKETCH_PLAN },      { "north-sed", BW_SKETCH_SECTION },
+  { "north-rm", BW_SKETCH_PLAN },       { "north-rm", BW_SKETCH_SECTION },
+  { "east-rm", BW_SKETCH_PLAN },        { "east-rm", BW_SKETCH_SECTION },
+  { "north-floc", BW_SKETCH_PLAN },     { "north-floc", BW_SKETCH_SECTION },
+  { "south-floc", BW_SKETCH_PLAN },     { "south-floc", BW_SKETCH_SECTION },
+  { "east-floc", BW_SKETCH_PLAN },      { "east-floc", BW_SKETCH_SECTION },
+  { "north-floc-1", BW_SKETCH_PLAN },   { "north-floc-1", BW_SKETCH_SECTION },
+  { "north-floc-2", BW_SKETCH_PLAN },   { "north-floc-2", BW_SKETCH_SECTION },
+  { "south-floc-3", BW_SKETCH_PLAN },   { "south-floc-3", BW_SKETCH_SECTION },
+  { "south-sed", BW_SKETCH_PLAN },      { "south-sed", BW_SKETCH_SECTION },
+  { "east-sed", BW_SKETCH_SECTION },
+  { "north-sed", BW_SKETCH_SCHEMATIC }, { "south-mix", BW_SKETCH_SCHEMATIC },
+  { "east-floc-2", BW_SKETCH_SCHEMATIC },
 };
 #define N_CASES ((int) G_N_ELEMENTS (cases))
 
 /* The smallest and largest canvases the sketches promise to be legible on, and one between. */
-static const double sizes[][2] = { { 400, 300 }, { 800, 560 }, { 3000, 2000 } };
+static const double sizes[][2] = { { 400, 300 }, { 1600, 1000 }, { 3000, 2000 } };
 #define N_SIZES ((int) G_N_ELEMENTS (sizes))
 
 static BwProject *demo;
@@ -121,8 +135,9 @@ START_TEST (test_sketch_paint_not_blank)
       paint_image (k, bw_style_light (), BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
   const double share = ink_share (s, bw_style_light ()->paper, NULL);
   /* A real sketch covers a fair part of the sheet with water, structure and text: at least 3 %
-   * (a title alone would be well under 1 %), and never the whole page. Derived from our layout. */
-  ck_assert_msg (share > 0.03 && share < 0.9, "%s %s at %gx%g: %.3f of the pixels inked", k->unit,
+   * (a title alone would be well under 1 %), and never the whole page. A schematic is outlines
+   * and text with one block filled: at least 1.5 %. Derived from our layout. */
+  ck_assert_msg (share > (k->view == BW_SKETCH_SCHEMATIC ? 0.015 : 0.03) && share < 0.9, "%s %s at %gx%g: %.3f of the pixels inked", k->unit,
                  bw_sketch_view_name (k->view), sz[0], sz[1], share);
   cairo_surface_destroy (s);
 }
@@ -170,6 +185,25 @@ START_TEST (test_sketch_scale_bar_matches_label)
   st.scale_bar = (BwRgb) { 1, 0, 1 };
   ck_assert (bw_sketch_layout (demo, unit (k->unit), k->view, units, &st, sz[0], sz[1], &g,
                                &error));
+  if (k->view == BW_SKETCH_SCHEMATIC)
+    {
+      /* not to scale, so no bar at all: nothing in the bar's colour anywhere */
+      ck_assert_double_eq (g.bar_length_m, 0.0);
+      ck_assert_str_eq (g.bar_label, "");
+      int barred = 0;
+      s = paint_image (k, &st, units, (int) sz[0], (int) sz[1]);
+      /* every pixel is looked at; one assertion at the end (each ck_assert costs a pipe write) */
+      for (int y = 0; y < (int) sz[1]; y++)
+        for (int x = 0; x < (int) sz[0]; x++)
+          {
+            int c[3];
+            pixel (s, x, y, c);
+            barred += c[0] > 200 && c[2] > 200 && c[1] < 60;
+          }
+      ck_assert_msg (barred == 0, "%d pixels in the bar's colour on a schematic", barred);
+      cairo_surface_destroy (s);
+      return;
+    }
   ck_assert_msg (bw_units_parse (g.bar_label, BW_KIND_LENGTH, NULL, "label", &labelled_m, &error),
                  "scale bar label '%s': %s", g.bar_label, error ? error->message : "");
   ck_assert_str_eq (g.bar_label + strlen (g.bar_label) - (units ? 2 : 1), units ? "ft" : "m");
@@ -275,6 +309,168 @@ START_TEST (test_sketch_drawn_to_scale)
 }
 END_TEST
 
+/* Runs of pixels of colour COL along ROW (a pixel at least about half COL counts): the last
+ * pixel of the first run and the first pixel of the last run. FALSE when there is none. */
+static gboolean
+colour_runs (cairo_surface_t *s, int row, BwRgb col, int *first_end, int *last_start)
+{
+  const int w = cairo_image_surface_get_width (s);
+  const int want[3] = { to_byte (col.r), to_byte (col.g), to_byte (col.b) };
+  int prev = -2, runs = 0;
+  *first_end = *last_start = -1;
+  for (int x = 0; x < w; x++)
+    {
+      int c[3];
+      pixel (s, x, row, c);
+      if (abs (c[0] - want[0]) + abs (c[1] - want[1]) + abs (c[2] - want[2]) < 120)
+        {
+          if (x != prev + 1)
+            {
+              runs++;
+              *last_start = x;
+            }
+          if (runs == 1)
+            *first_end = x;
+          prev = x;
+        }
+    }
+  return runs >= 2;
+}
+
+/* Centres of the runs of pure red along ROW (weighted by coverage), into CENTRES; returns how
+ * many. */
+static int
+run_centres (cairo_surface_t *s, int row, double *centres, int max)
+{
+  const int w = cairo_image_surface_get_width (s);
+  int n = 0;
+  double sum = 0, wsum = 0;
+  for (int x = 0; x <= w; x++)
+    {
+      double a = 0;
+      if (x < w)
+        {
+          int c[3];
+          pixel (s, x, row, c);
+          /* pure red over cyan water: red rises and blue falls with the coverage; greys (the
+           * break lines, text) have red and blue alike */
+          if (c[0] - c[2] > 40)
+            a = CLAMP (c[0] / 255.0, 0.0, 1.0);
+        }
+      if (a > 0.05)
+        {
+          sum += a * x;
+          wsum += a;
+        }
+      else if (wsum > 0)
+        {
+          if (n < max)
+            centres[n++] = sum / wsum;
+          sum = wsum = 0;
+        }
+    }
+  return n;
+}
+
+/* The new views drawn to the scale of their bar, one measure each (all from the demo file):
+ * the flocculators' water length in plan and section, a stage drawn alone, the clarifier's
+ * inside diameter in plan and in section, and the settler's plate pitch. */
+START_TEST (test_sketch_new_views_to_scale)
+{
+  const double *sz = sizes[_i];
+  g_autoptr (GError) error = NULL;
+  BwStyle st = *bw_style_light ();
+  BwSketchGeometry g;
+  cairo_surface_t *s;
+  double got, want;
+
+  st.water = (BwRgb) { 0, 1, 1 };
+  st.concrete = (BwRgb) { 0, 0.8, 0 };
+  st.equipment = (BwRgb) { 1, 0, 0 };
+
+  /* 1. north flocculator, plan: 0.3 m in from the side wall, below the blades' ends and clear
+   * of the inlet port; the water is the three 3 m stages long, less the end walls' outlines
+   * (half each, as in the basin's check above) */
+  {
+    const Case k = { "north-floc", BW_SKETCH_PLAN };
+    ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                                 &g, &error));
+    s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+    got = water_span (s, (int) floor (g.origin_y - g.scale * 0.3));
+    want = g.scale * 9.0 - outline_px (&st, &g);
+    ck_assert_msg (fabs (got - want) <= 1.5, "north-floc plan water %g px, want %g", got, want);
+    cairo_surface_destroy (s);
+  }
+  /* 2. south flocculator, section: 0.25 m above the floor, under the inlet port; 16 x 0.196 +
+   * 13 x 0.245 + 9 x 0.345 = 9.426 m of baffled channels */
+  {
+    const Case k = { "south-floc", BW_SKETCH_SECTION };
+    ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                                 &g, &error));
+    s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+    got = water_span (s, (int) floor (g.origin_y - g.scale * 0.25));
+    want = g.scale * (16 * 0.196 + 13 * 0.245 + 9 * 0.345) - outline_px (&st, &g);
+    ck_assert_msg (fabs (got - want) <= 1.5, "south-floc section water %g px, want %g", got, want);
+    cairo_surface_destroy (s);
+  }
+  /* 3. stage 1 of the north flocculator alone (section): the inlet wall on the left, the next
+   * stage's partition on the right, where the water runs on through the wall's thickness
+   * (0.30 m by convention) without an outline: 3 m + 0.3 m less half an outline */
+  {
+    const Case k = { "north-floc-1", BW_SKETCH_SECTION };
+    ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                                 &g, &error));
+    s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+    got = water_span (s, (int) floor (g.origin_y - g.scale * 0.25));
+    want = g.scale * 3.3 - 0.5 * outline_px (&st, &g);
+    ck_assert_msg (fabs (got - want) <= 1.5, "north-floc-1 section water %g px, want %g", got, want);
+    cairo_surface_destroy (s);
+  }
+  /* 4. clarifier, plan: along the centre row, the gap between the wall ring's two concrete runs
+   * is the 16 m inside diameter plus one outline (half of it on each inner face) */
+  {
+    const Case k = { "south-sed", BW_SKETCH_PLAN };
+    int first_end, last_start;
+    ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                                 &g, &error));
+    s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+    ck_assert (colour_runs (s, (int) floor (g.origin_y), st.concrete, &first_end, &last_start));
+    got = last_start - first_end - 1;
+    want = g.scale * 16.0 + outline_px (&st, &g);
+    ck_assert_msg (fabs (got - want) <= 1.5, "clarifier plan inside %g px, want %g", got, want);
+    cairo_surface_destroy (s);
+  }
+  /* 5. clarifier, section: 0.6 m above the wall foot, below the flow arrows: wall to wall */
+  {
+    const Case k = { "south-sed", BW_SKETCH_SECTION };
+    ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                                 &g, &error));
+    s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+    got = water_span (s, (int) floor (g.origin_y - g.scale * 0.6));
+    want = g.scale * 16.0 - outline_px (&st, &g);
+    ck_assert_msg (fabs (got - want) <= 1.5, "clarifier section water %g px, want %g", got, want);
+    cairo_surface_destroy (s);
+  }
+  /* 6. plate settler, section: halfway up the plates, the eight plates drawn cross the row at
+   * the horizontal pitch 50 mm / sin 60°; first to last centre is seven pitches */
+  {
+    const Case k = { "east-sed", BW_SKETCH_SECTION };
+    double c[16];
+    int nc;
+    ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                                 &g, &error));
+    s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+    nc = run_centres (s, (int) floor (g.origin_y - g.scale * 0.5 * 1.5 * sin (G_PI / 3)), c, 16);
+    ck_assert_msg (nc == 8, "%d runs at %gx%g, from %g to %g", nc, sz[0], sz[1], c[0],
+                   c[MAX (nc - 1, 0)]);
+    got = c[nc - 1] - c[0];
+    want = g.scale * 7 * 0.05 / sin (G_PI / 3);
+    ck_assert_msg (fabs (got - want) <= 1.5, "settler pitch x 7 = %g px, want %g", got, want);
+    cairo_surface_destroy (s);
+  }
+}
+END_TEST
+
 START_TEST (test_sketch_light_and_dark)
 {
   const Case *k = &cases[_i];
@@ -350,7 +546,8 @@ START_TEST (test_sketch_variants)
 
   ck_assert_msg (bw_process_unit_set (u, v->param, v->value, &error), "%s",
                  error ? error->message : "");
-  for (int view = 0; view < BW_N_SKETCH_VIEWS; view++)
+  /* a copy is in no train, so no schematic: its plan and section */
+  for (int view = 0; view < BW_SKETCH_SCHEMATIC; view++)
     for (int k = 0; k < N_SIZES; k++)
       {
         cairo_surface_t *rec = cairo_recording_surface_create (CAIRO_CONTENT_COLOR_ALPHA, NULL);
@@ -378,6 +575,104 @@ START_TEST (test_sketch_variants)
         cairo_surface_destroy (rec);
         cairo_surface_destroy (img);
       }
+}
+END_TEST
+
+/* Inputs of the new views other than the demo's, set on a copy of the project (a stage is drawn
+ * through its flocculator): a vertical paddle shaft with three blade radii, every turbine and an
+ * unbaffled one, over-and-under baffles and a coarse and a very fine spacing, an inboard launder,
+ * no feed well, a thin sludge zone, tubes of both shapes, a shallow and a steep angle, few and
+ * many plates. Each paints every view of the unit it changes (and of the stage itself), inks the
+ * sheet and stays on it, in light SI and dark US units. Where the engine refuses the changed
+ * project (a custom impeller without its power number), the schematic, which shows results,
+ * must refuse too, passing the engine's message on. */
+static const Variant new_variants[] = {
+  { "east-floc-1", "shaft", 1 },            { "east-floc-1", "blade-radius-3", 0.5 },
+  { "east-floc-2", "arms", 6 },             { "east-floc-2", "wheels", 1 },
+  { "north-floc-1", "impeller", 0 },        { "north-floc-1", "impeller", 1 },
+  { "north-floc-1", "impeller", 3 },        { "north-floc-1", "baffles", 1 },
+  { "south-floc-2", "style", 1 },           { "south-floc-1", "spacing", 1.5 },
+  { "south-floc-3", "passes", 200 },        { "south-sed", "launder", 1 },
+  { "south-sed", "feed-well-diameter", 0 }, { "south-sed", "sludge-depth", 0.05 },
+  { "east-sed", "shape", 1 },               { "east-sed", "shape", 2 },
+  { "east-sed", "angle", G_PI / 4 },        { "east-sed", "angle", 1.5 },
+  { "east-sed", "count", 3 },               { "east-sed", "spacing", 0.3 },
+};
+
+START_TEST (test_sketch_new_variants)
+{
+  const Variant *v = &new_variants[_i];
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwProject) p = bw_project_copy (demo);
+  BwProcessUnit *u = bw_project_find_unit (p, v->unit, NULL);
+  const BwProcessUnit *drawn[2] = { u, NULL };
+  g_autoptr (BwResults) results = NULL;
+
+  ck_assert_ptr_nonnull (u);
+  ck_assert_msg (bw_process_unit_set (u, v->param, v->value, &error), "%s",
+                 error ? error->message : "");
+  if (g_str_equal (v->param, "launder"))
+    ck_assert (bw_process_unit_set (u, "launder-radius", 6.0, &error));
+  results = bw_project_evaluate (p, NULL);
+  /* a stage is drawn alone and in its flocculator */
+  for (guint t = 0; bw_process_type_is_stage (u->type) && t < p->trains->len; t++)
+    {
+      const BwTrain *tr = g_ptr_array_index (p->trains, t);
+      for (guint i = 0; i < tr->units->len; i++)
+        {
+          const BwProcessUnit *f = g_ptr_array_index (tr->units, i);
+          for (guint j = 0; f->stages && j < f->stages->len; j++)
+            if (g_ptr_array_index (f->stages, j) == u)
+              drawn[1] = f;
+        }
+    }
+  for (int d = 0; d < 2 && drawn[d]; d++)
+    for (int view = 0; view < BW_N_SKETCH_VIEWS; view++)
+      for (int k = 0; k < N_SIZES; k++)
+        {
+          cairo_surface_t *rec, *img;
+          cairo_t *cr, *ci;
+          double x, y, w, h;
+
+          if (!bw_sketch_supports (drawn[d]->type, (BwSketchView) view))
+            continue;
+          if (view == BW_SKETCH_SCHEMATIC && results == NULL)
+            {
+              cairo_surface_t *one = cairo_image_surface_create (CAIRO_FORMAT_RGB24, 400, 300);
+              cairo_t *c1 = cairo_create (one);
+              ck_assert (!bw_sketch_paint (p, drawn[d], BW_SKETCH_SCHEMATIC, BW_UNIT_SYSTEM_SI,
+                                           bw_style_light (), c1, 400, 300, &error));
+              ck_assert_msg (g_str_has_prefix (error->message, "schematic: "), "%s",
+                             error->message);
+              g_clear_error (&error);
+              cairo_destroy (c1);
+              cairo_surface_destroy (one);
+              continue;
+            }
+          rec = cairo_recording_surface_create (CAIRO_CONTENT_COLOR_ALPHA, NULL);
+          img = cairo_image_surface_create (CAIRO_FORMAT_RGB24, (int) sizes[k][0],
+                                            (int) sizes[k][1]);
+          cr = cairo_create (rec);
+          ci = cairo_create (img);
+          ck_assert_msg (bw_sketch_paint (p, drawn[d], (BwSketchView) view, BW_UNIT_SYSTEM_SI,
+                                          bw_style_light (), cr, sizes[k][0], sizes[k][1], &error),
+                         "%s %s=%g %s: %s", drawn[d]->id, v->param, v->value,
+                         bw_sketch_view_name ((BwSketchView) view), error ? error->message : "");
+          ck_assert (bw_sketch_paint (p, drawn[d], (BwSketchView) view, BW_UNIT_SYSTEM_US,
+                                      bw_style_dark (), ci, sizes[k][0], sizes[k][1], &error));
+          cairo_recording_surface_ink_extents (rec, &x, &y, &w, &h);
+          ck_assert_msg (x >= -0.5 && y >= -0.5 && x + w <= sizes[k][0] + 0.5
+                             && y + h <= sizes[k][1] + 0.5,
+                         "%s %s=%g %s at %gx%g: ink at %g,%g size %gx%g", drawn[d]->id, v->param,
+                         v->value, bw_sketch_view_name ((BwSketchView) view), sizes[k][0],
+                         sizes[k][1], x, y, w, h);
+          cairo_surface_flush (img);
+          ck_assert (ink_share (img, bw_style_dark ()->paper, NULL) > 0.015);
+          cairo_destroy (cr);
+          cairo_destroy (ci);
+          cairo_surface_destroy (rec);
+          cairo_surface_destroy (img);
+        }
 }
 END_TEST
 
@@ -409,10 +704,14 @@ START_TEST (test_sketch_refuses)
   cairo_surface_t *bad;
   cairo_t *cr = cairo_create (s);
 
-  /* a circular clarifier is not drawn yet */
-  ck_assert (!bw_sketch_paint (demo, unit ("south-sed"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
+  /* an in-line mixer has no geometry to draw, a plate settler no plan */
+  ck_assert (!bw_sketch_paint (demo, unit ("south-mix"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
                                bw_style_light (), cr, 400, 300, &error));
-  bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "south-sed");
+  bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "south-mix");
+  g_clear_error (&error);
+  ck_assert (!bw_sketch_paint (demo, unit ("east-sed"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
+                               bw_style_light (), cr, 400, 300, &error));
+  bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "drawn: section|schematic");
   g_clear_error (&error);
   ck_assert (!bw_sketch_layout (demo, unit ("north-sed"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
                                 bw_style_light (), 100, 300, &g, &error));
@@ -443,8 +742,19 @@ START_TEST (test_sketch_view_names)
   ck_assert (bw_sketch_view_from_name ("section", &v) && v == BW_SKETCH_SECTION);
   ck_assert (!bw_sketch_view_from_name ("elevation", &v));
   ck_assert (!bw_sketch_view_from_name (NULL, &v));
+  ck_assert (bw_sketch_view_from_name ("schematic", &v) && v == BW_SKETCH_SCHEMATIC);
   ck_assert (bw_sketch_supports (BW_PROCESS_RAPID_MIX, BW_SKETCH_SECTION));
-  ck_assert (!bw_sketch_supports (BW_PROCESS_FLOCCULATOR, BW_SKETCH_PLAN));
+  ck_assert (bw_sketch_supports (BW_PROCESS_FLOCCULATOR, BW_SKETCH_PLAN));
+  ck_assert (bw_sketch_supports (BW_STAGE_BAFFLED, BW_SKETCH_SECTION));
+  ck_assert (!bw_sketch_supports (BW_PROCESS_PLATE_SETTLER, BW_SKETCH_PLAN));
+  ck_assert (!bw_sketch_supports (BW_PROCESS_INLINE_MIXER, BW_SKETCH_SECTION));
+  ck_assert (bw_sketch_supports (BW_PROCESS_INLINE_MIXER, BW_SKETCH_SCHEMATIC));
+  {
+    g_autofree char *a = bw_sketch_views_of (BW_PROCESS_CIRCULAR_CLARIFIER);
+    g_autofree char *b = bw_sketch_views_of (BW_PROCESS_INLINE_MIXER);
+    ck_assert_str_eq (a, "plan|section|schematic");
+    ck_assert_str_eq (b, "schematic");
+  }
 }
 END_TEST
 
@@ -555,9 +865,9 @@ START_TEST (test_export_errors)
                                 bw_style_light (), BW_EXPORT_PDF, missing, 400, 300, &error));
   bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, missing);
   g_clear_error (&error);
-  ck_assert (!bw_export_sketch (demo, unit ("south-floc"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
+  ck_assert (!bw_export_sketch (demo, unit ("south-mix"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
                                 bw_style_light (), BW_EXPORT_PNG, ok, 400, 300, &error));
-  bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "south-floc");
+  bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "south-mix");
   g_clear_error (&error);
   ck_assert (!bw_export_sketch (demo, unit ("north-rm"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
                                 bw_style_light (), BW_EXPORT_PNG, ok, 400.5, 300, &error));
@@ -577,9 +887,11 @@ bw_test_suite (void)
   tcase_add_loop_test (tc, test_sketch_ink_within_canvas, 0, N_CASES * N_SIZES);
   tcase_add_loop_test (tc, test_sketch_scale_bar_matches_label, 0, N_CASES * N_SIZES * 2);
   tcase_add_loop_test (tc, test_sketch_drawn_to_scale, 0, N_SIZES);
+  tcase_add_loop_test (tc, test_sketch_new_views_to_scale, 0, N_SIZES);
   tcase_add_loop_test (tc, test_sketch_light_and_dark, 0, N_CASES);
   tcase_add_loop_test (tc, test_sketch_layout_fits_world, 0, N_CASES * N_SIZES);
   tcase_add_loop_test (tc, test_sketch_variants, 0, G_N_ELEMENTS (variants));
+  tcase_add_loop_test (tc, test_sketch_new_variants, 0, G_N_ELEMENTS (new_variants));
   tcase_add_test (tc, test_sketch_refuses);
   tcase_add_test (tc, test_sketch_view_names);
   tcase_add_test (tc, test_style_palette_lightness);
