@@ -8,6 +8,9 @@
 #include <string.h>
 
 #include "cli/bw-cli.h"
+#include "draw/bw-charts.h"
+#include "engine/bw-evaluate.h"
+#include "io/bw-criteria-xml.h"
 #include "draw/bw-export.h"
 #include "draw/bw-sketch.h"
 #include "draw/bw-style.h"
@@ -22,8 +25,9 @@
 
 static const BwOptSpec render_specs[] = {
   { "unit", BW_OPT_STRING, 0, NULL, NULL, TRUE, "ID", "id of the unit to draw", NULL },
-  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section|schematic", TRUE, "NAME",
-    "which view (schematic: the unit's train with its results)", NULL },
+  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section|schematic|taper|settling|removal|power|checks", TRUE,
+    "NAME", "which view (schematic: the unit's train with its results; taper, settling, removal, "
+    "power, checks: charts)", NULL },
   { "format", BW_OPT_CHOICE, 0, NULL, "png|svg|pdf", TRUE, "FORMAT", "file format", NULL },
   { "size", BW_OPT_STRING, 0, NULL, NULL, FALSE, "WxH",
     "canvas in pixels (png) or points (svg, pdf); default 1600x1000 or 842x595", NULL },
@@ -106,8 +110,7 @@ run_render (BwCliArgs *args)
     return bw_cli_usage_error (args->command, "-o: the output file is required");
 
   /* The parser already held both to their choices. */
-  if (!bw_sketch_view_from_name (bw_cli_get (args, "view")->text, &view)
-      || !bw_export_format_from_name (bw_cli_get (args, "format")->text, &format))
+  if (!bw_export_format_from_name (bw_cli_get (args, "format")->text, &format))
     g_assert_not_reached ();
   if (size->given)
     {
@@ -126,6 +129,50 @@ run_render (BwCliArgs *args)
   if (u == NULL)
     return bw_cli_usage_error (args->command, "--unit: no unit '%s' in %s",
                                bw_cli_get (args, "unit")->text, project);
+  if (!bw_sketch_view_from_name (bw_cli_get (args, "view")->text, &view))
+    {
+      /* A chart: built from the engine's results (and the checks) of the project. */
+      const char *name = bw_cli_get (args, "view")->text;
+      g_autoptr (BwResults) r = bw_project_evaluate (p, &error);
+      g_autoptr (BwCriteriaSet) set = NULL;
+      g_autoptr (GArray) checks = NULL;
+      g_autoptr (BwChart) chart = NULL;
+      if (r == NULL)
+        return bw_cli_usage_error (args->command, "%s: %s", project, error->message);
+      set = bw_criteria_set_open (p->criteria ? p->criteria : "textbook-ranges", NULL);
+      if (set)
+        checks = bw_check_results (r, set);
+      if (strcmp (name, "taper") == 0)
+        chart = bw_chart_floc_taper (p, r, checks, u->id, args->units, &error);
+      else if (strcmp (name, "settling") == 0)
+        chart = bw_chart_settling_curves (p, r, u->id, 0, args->units, &error);
+      else if (strcmp (name, "removal") == 0)
+        chart = bw_chart_removal_curves (p, r, u->id, args->units, &error);
+      else if (strcmp (name, "power") == 0)
+        chart = bw_chart_impeller_power (p, r, checks, u->id, args->units, &error);
+      else if (checks)
+        chart = bw_chart_check_matrix (p, r, checks, NULL, &error);
+      else
+        return bw_cli_usage_error (args->command, "--view: checks needs a criteria set the project names");
+      if (chart == NULL)
+        return bw_cli_usage_error (args->command, "--view: %s", error->message);
+      if (!bw_export_chart (chart, style_opt->given && strcmp (style_opt->text, "dark") == 0
+                                       ? bw_style_dark () : bw_style_light (),
+                            format, output, w, h, &error))
+        return bw_cli_usage_error (args->command, "%s", error->message);
+      if (args->json)
+        {
+          BwJson *j = bw_json_new ();
+          bw_json_string (j, "file", output);
+          bw_json_string (j, "unit", u->id);
+          bw_json_string (j, "view", name);
+          bw_json_string (j, "format", bw_export_format_name (format));
+          bw_json_number (j, "width", w);
+          bw_json_number (j, "height", h);
+          bw_json_print_free (j);
+        }
+      return BW_CLI_EXIT_OK;
+    }
   if (!bw_sketch_supports (u->type, view))
     {
       g_autofree char *views = bw_sketch_views_of (u->type);
@@ -160,5 +207,8 @@ const BwCliCommand bw_cli_cmd_render = {
   "plan and section: rapid-mix tanks, flocculators (or one stage, by its id), rectangular\n"
   "basins and circular clarifiers; section: plate and tube settlers. schematic: any unit's train,\n"
   "with the engine's results at the maximum-day flow (coldest, all in service).\n"
+  "Charts: taper (a flocculator's G and Gt by stage), settling (velocity against diameter with a\n"
+  "basin's overflow rate), removal (against overflow rate), power (a rapid mix's or turbine's\n"
+  "power and G against speed), checks (the checks across the load cases; any unit).\n"
   "--units us labels dimensions and the scale bar in feet. --json reports what was written.",
 };

@@ -46,25 +46,20 @@ cairo_fail (cairo_status_t status, const char *path, GError **error)
   return FALSE;
 }
 
-gboolean
-bw_export_sketch (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
-                  BwUnitSystem units, const BwStyle *style, BwExportFormat format,
-                  const char *path, double width, double height, GError **error)
+typedef gboolean (*PaintFn) (gpointer data, cairo_t *cr, double width, double height, GError **error);
+
+/* Paints with PAINT into a temporary file beside PATH and renames it over PATH on success. */
+static gboolean
+export_with (PaintFn paint, gpointer data, BwExportFormat format, const char *path, double width,
+             double height, GError **error)
 {
   g_autofree char *tmp = NULL;
   cairo_surface_t *surface = NULL;
   cairo_t *cr;
   cairo_status_t status;
   gboolean ok;
-  BwSketchGeometry geometry;
   int fd;
 
-  g_return_val_if_fail (p != NULL && u != NULL && style != NULL && path != NULL, FALSE);
-  g_return_val_if_fail (format < BW_N_EXPORT_FORMATS, FALSE);
-
-  /* Refuse a bad unit, view or size before touching the file system. */
-  if (!bw_sketch_layout (p, u, view, units, style, width, height, &geometry, error))
-    return FALSE;
   if (format == BW_EXPORT_PNG && (width != floor (width) || height != floor (height)))
     {
       g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE,
@@ -112,7 +107,7 @@ bw_export_sketch (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
     }
 
   cr = cairo_create (surface);
-  ok = bw_sketch_paint (p, u, view, units, style, cr, width, height, error);
+  ok = paint (data, cr, width, height, error);
   cairo_destroy (cr);
   if (ok)
     {
@@ -144,4 +139,70 @@ bw_export_sketch (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
       return FALSE;
     }
   return TRUE;
+}
+
+typedef struct
+{
+  const BwProject *p;
+  const BwProcessUnit *u;
+  BwSketchView view;
+  BwUnitSystem units;
+  const BwStyle *style;
+} SketchJob;
+
+static gboolean
+paint_sketch (gpointer data, cairo_t *cr, double width, double height, GError **error)
+{
+  const SketchJob *j = data;
+  return bw_sketch_paint (j->p, j->u, j->view, j->units, j->style, cr, width, height, error);
+}
+
+typedef struct
+{
+  const BwChart *chart;
+  const BwStyle *style;
+} ChartJob;
+
+static gboolean
+paint_chart (gpointer data, cairo_t *cr, double width, double height, GError **error)
+{
+  const ChartJob *j = data;
+  (void) error;
+  bw_chart_paint (j->chart, j->style, cr, width, height);
+  return TRUE;
+}
+
+gboolean
+bw_export_chart (const BwChart *chart, const BwStyle *style, BwExportFormat format,
+                 const char *path, double width, double height, GError **error)
+{
+  ChartJob j = { chart, style };
+
+  g_return_val_if_fail (chart != NULL && style != NULL && path != NULL, FALSE);
+  g_return_val_if_fail (format < BW_N_EXPORT_FORMATS, FALSE);
+  if (width < BW_SKETCH_MIN_SIDE || height < BW_SKETCH_MIN_SIDE || width > BW_SKETCH_MAX_SIDE
+      || height > BW_SKETCH_MAX_SIDE)
+    {
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "size: each side must be %g to %g",
+                   BW_SKETCH_MIN_SIDE, BW_SKETCH_MAX_SIDE);
+      return FALSE;
+    }
+  return export_with (paint_chart, &j, format, path, width, height, error);
+}
+
+gboolean
+bw_export_sketch (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
+                  BwUnitSystem units, const BwStyle *style, BwExportFormat format,
+                  const char *path, double width, double height, GError **error)
+{
+  BwSketchGeometry geometry;
+  SketchJob j = { p, u, view, units, style };
+
+  g_return_val_if_fail (p != NULL && u != NULL && style != NULL && path != NULL, FALSE);
+  g_return_val_if_fail (format < BW_N_EXPORT_FORMATS, FALSE);
+
+  /* Refuse a bad unit, view or size before touching the file system. */
+  if (!bw_sketch_layout (p, u, view, units, style, width, height, &geometry, error))
+    return FALSE;
+  return export_with (paint_sketch, &j, format, path, width, height, error);
 }

@@ -4,6 +4,7 @@
 
 #include <glib.h>
 
+#include "draw/bw-chart.h"
 #include "draw/bw-sketch.h"
 #include "draw/bw-style.h"
 
@@ -26,5 +27,9 @@ gboolean bw_export_format_from_name (const char *name, BwExportFormat *out);
 gboolean bw_export_sketch (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
                            BwUnitSystem units, const BwStyle *style, BwExportFormat format,
                            const char *path, double width, double height, GError **error);
+
+/* The same for a chart (bw_chart_paint); the size must lie within the sketch limits. */
+gboolean bw_export_chart (const BwChart *chart, const BwStyle *style, BwExportFormat format,
+                          const char *path, double width, double height, GError **error);
 
 G_END_DECLS

@@ -183,6 +183,20 @@ expect_usage_error(tap, ["render", demo, "--unit", "north-sed", "--view", "plan"
                          "-o", nowhere], nowhere, "unwritable output names the file")
 tap.ok(not os.path.exists(os.path.join(tmp, "x.png")), "no file written by a failed render")
 
+# Charts are views too: each for the units it applies to, in every format; others name --view.
+charts = [("north-floc", "taper"), ("south-floc", "taper"), ("north-sed", "settling"),
+          ("south-sed", "settling"), ("north-sed", "removal"), ("north-rm", "power"),
+          ("east-rm", "power"), ("north-rm", "checks")]
+for unit, view in charts:
+    for fmt, magic in (("png", b"\x89PNG"), ("svg", b"<?xml"), ("pdf", b"%PDF")):
+        out = os.path.join(tmp, f"chart-{unit}-{view}.{fmt}")
+        code, stdout, err = run("render", demo, "--unit", unit, "--view", view, "--format", fmt, "-o", out)
+        good = code == 0 and os.path.exists(out) and open(out, "rb").read(5).startswith(magic[:4])
+        tap.ok(good, f"chart {view} of {unit} as {fmt}", f"exit {code}: {err}")
+for unit, view in (("north-rm", "taper"), ("north-floc", "settling"), ("north-floc", "power")):
+    expect_usage_error(tap, ["render", demo, "--unit", unit, "--view", view, "--format", "png",
+                             "-o", os.path.join(tmp, "y.png")], "--view", f"no {view} chart of {unit}")
+
 for name in os.listdir(tmp):
     os.unlink(os.path.join(tmp, name))
 os.rmdir(tmp)
