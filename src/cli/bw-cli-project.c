@@ -2,6 +2,7 @@
 /* bw-cli-project.c: the project commands `compute`, `check` and `criteria`. */
 #include "config.h"
 
+#include <math.h>
 #include <stdio.h>
 #include <string.h>
 
@@ -155,7 +156,8 @@ run_compute (BwCliArgs *args)
             continue;
           a = bw_units_format (el->values[lo].values[q], info->kind, args->units);
           b = bw_units_format (el->values[hi].values[q], info->kind, args->units);
-          if (el->values[lo].values[q] == el->values[hi].values[q])
+          if (fabs (el->values[lo].values[q] - el->values[hi].values[q])
+              <= 1e-12 * fabs (el->values[hi].values[q]))
             {
               g_autofree char *c1 = bw_cli_pad (info->label, 36);
               g_autofree char *c2 = bw_cli_pad (a, 16);

@@ -551,9 +551,15 @@ bw_results_extreme_case (const BwResults *r, guint element, BwQuantity q, gboole
     {
       if (!bw_quantity_set_has (&e->values[c], q))
         continue;
-      if (best < 0 || (largest ? e->values[c].values[q] > e->values[best].values[q]
-                               : e->values[c].values[q] < e->values[best].values[q]))
-        best = (int) c;
+      {
+        /* Strictly better by more than round-off: a flow-independent quantity keeps its first
+         * case rather than whichever case the last bit of rounding favours. */
+        const double v = e->values[c].values[q];
+        const double b = best >= 0 ? e->values[best].values[q] : 0;
+        const double tol = 1e-12 * MAX (fabs (v), fabs (b));
+        if (best < 0 || (largest ? v > b + tol : v < b - tol))
+          best = (int) c;
+      }
     }
   return best;
 }
