@@ -7,6 +7,7 @@
 #include <string.h>
 
 #include "cli/bw-cli.h"
+#include "draw/bw-report.h"
 #include "engine/bw-review.h"
 #include "io/bw-criteria-xml.h"
 #include "io/bw-csv.h"
@@ -87,6 +88,8 @@ static const BwOptSpec review_specs[] = {
   { "tolerance", BW_OPT_QUANTITY, BW_KIND_FRACTION, NULL, NULL, FALSE, "TOL",
     "relative difference flagged as a discrepancy (default 1%)", "tolerance" },
   { "criteria", BW_OPT_STRING, 0, NULL, NULL, FALSE, "NAME|FILE", "criteria set (default the project's)", NULL },
+  { "output", BW_OPT_STRING, 0, NULL, NULL, FALSE, "FILE.pdf", "write the findings report as PDF (same as -o FILE.pdf)", NULL },
+  { "paper", BW_OPT_CHOICE, 0, NULL, "a4|letter", FALSE, "SIZE", "paper of the findings report (default a4)", NULL },
 };
 
 static int
@@ -102,14 +105,39 @@ run_review (BwCliArgs *args)
   const BwOptValue *cv = bw_cli_get (args, "criteria");
   const double tol = bw_cli_get_double (args, "tolerance", 0.01);
   guint discrepancies = 0, unmatched = 0, fails = 0, warns = 0;
+  const BwOptValue *ov = bw_cli_get (args, "output"), *pv = bw_cli_get (args, "paper");
+  const char *project = NULL, *output = NULL;
+  BwReportPaper paper = BW_REPORT_PAPER_A4;
 
+  /* The parser hands "-o FILE" over as positional words; pick them out here. */
+  for (guint i = 0; args->positional[i]; i++)
+    {
+      const char *a = args->positional[i];
+      if (strcmp (a, "-o") == 0)
+        {
+          if (args->positional[i + 1] == NULL)
+            return bw_cli_usage_error (args->command, "-o needs a value");
+          if (output != NULL || ov->given)
+            return bw_cli_usage_error (args->command, "-o is given more than once");
+          output = args->positional[++i];
+        }
+      else if (project == NULL)
+        project = a;
+      else
+        return bw_cli_usage_error (args->command, "unexpected argument '%s'", a);
+    }
+  if (ov->given)
+    output = ov->text;
+  if (project == NULL)
+    return bw_cli_usage_error (args->command, "missing PROJECT");
+  if (pv->given)
+    bw_report_paper_from_name (pv->text, &paper);
   if (!(tol > 0) || tol >= 1)
     return bw_cli_usage_error (args->command, "--tolerance: must lie between 0 and 100%%");
   stated = bw_stated_load_csv (bw_cli_get (args, "stated")->text, &error);
   if (stated == NULL)
     return bw_cli_usage_error (args->command, "--stated: %s", error->message);
-  if (!load_evaluated (args->command, args->positional[0], cv->given ? cv->text : NULL, &p, &r, &set,
-                       &checks))
+  if (!load_evaluated (args->command, project, cv->given ? cv->text : NULL, &p, &r, &set, &checks))
     return BW_CLI_EXIT_USAGE;
   findings = bw_review (r, stated, checks, tol);
   for (guint i = 0; i < findings->len; i++)
@@ -122,6 +150,14 @@ run_review (BwCliArgs *args)
           fails += f->check->status == BW_CHECK_FAIL;
           warns += f->check->status == BW_CHECK_WARN;
         }
+    }
+
+  if (output != NULL)
+    {
+      if (*output == '\0')
+        return bw_cli_usage_error (args->command, "-o: the output file is required");
+      if (!bw_review_report_write_pdf (p, r, findings, set, tol, paper, args->units, output, &error))
+        return bw_cli_usage_error (args->command, "-o: %s", error->message);
     }
 
   if (args->json)
@@ -184,7 +220,7 @@ run_review (BwCliArgs *args)
   else
     {
       printf ("Review of %s against %s; stated values compared within %g %%\n",
-              p->name ? p->name : args->positional[0], set->id, tol * 100);
+              p->name ? p->name : project, set->id, tol * 100);
       printf ("Preliminary design aid: verify with a licensed professional engineer; local codes govern.\n\n");
       for (guint i = 0; i < findings->len; i++)
         {
@@ -220,7 +256,7 @@ run_review (BwCliArgs *args)
 
 const BwCliCommand bw_cli_cmd_review = {
   "review", "Stated-versus-computed discrepancies and criteria findings of a submittal.",
-  "PROJECT", 1, 1, review_specs, G_N_ELEMENTS (review_specs), run_review,
+  "PROJECT [-o FILE.pdf]", 1, 3, review_specs, G_N_ELEMENTS (review_specs), run_review,
   "The stated CSV names each value's element, quantity, case (a load-case id, max or min), value\n"
   "and unit. Exit 1 when a required criterion fails, 0 otherwise (discrepancies are listed and\n"
   "counted either way).",

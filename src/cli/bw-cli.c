@@ -31,6 +31,7 @@ static const BwCliCommand *const commands[] = {
   &bw_cli_cmd_diff,
   &bw_cli_cmd_autosize,
   &bw_cli_cmd_render,
+  &bw_cli_cmd_report,
 };
 
 static void

@@ -141,5 +141,6 @@ extern const BwCliCommand bw_cli_cmd_review;
 extern const BwCliCommand bw_cli_cmd_diff;
 extern const BwCliCommand bw_cli_cmd_autosize;
 extern const BwCliCommand bw_cli_cmd_render;
+extern const BwCliCommand bw_cli_cmd_report;
 
 G_END_DECLS

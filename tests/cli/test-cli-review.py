@@ -35,6 +35,23 @@ def review_planted():
     assert crit and all(f["status"] in ("warn", "fail") and f["document"] for f in crit), crit
 tap.check("review flags exactly the planted discrepancies", review_planted)
 
+def review_pdf():
+    import shutil
+    with tempfile.TemporaryDirectory() as tmp:
+        out = os.path.join(tmp, "findings.pdf")
+        code, _, err = run("review", demo, "--stated", stated, "-o", out, "--paper", "letter")
+        assert code == 0, err
+        assert open(out, "rb").read(4) == b"%PDF"
+        if shutil.which("pdftotext"):
+            import subprocess
+            text = subprocess.run(["pdftotext", out, "-"], capture_output=True, text=True).stdout
+            for needle in ("north-sed", "north-rm", "south-floc", "Table 5-3, p. 14", "licensed professional"):
+                assert needle in text, needle
+        bad_dir = os.path.join(tmp, "missing", "f.pdf")
+        code, _, err = run("review", demo, "--stated", stated, "-o", bad_dir)
+        assert code == 2 and "-o" in err and not os.path.exists(bad_dir), (code, err)
+tap.check("review -o writes the findings report as PDF", review_pdf)
+
 def review_tolerance():
     # At 25 % the 22 % overflow error and the 24 % detention error pass; the 6 % G error too.
     d = json.loads(run("review", demo, "--stated", stated, "--tolerance", "25%", "--json")[1])
