@@ -374,3 +374,33 @@ bw_cli_fail (const BwCliArgs *args, const GError *error)
     }
   return bw_cli_usage_error (args->command, "%s", msg);
 }
+
+gboolean
+bw_cli_project_and_output (const BwCliArgs *args, const char **project, const char **output)
+{
+  const BwOptValue *ov = bw_cli_get (args, "output");
+
+  *project = NULL;
+  *output = NULL;
+  for (guint i = 0; args->positional[i]; i++)
+    {
+      const char *a = args->positional[i];
+      if (strcmp (a, "-o") == 0)
+        {
+          if (args->positional[i + 1] == NULL)
+            return bw_cli_usage_error (args->command, "-o needs a value"), FALSE;
+          if (*output != NULL || ov->given)
+            return bw_cli_usage_error (args->command, "-o is given more than once"), FALSE;
+          *output = args->positional[++i];
+        }
+      else if (*project == NULL)
+        *project = a;
+      else
+        return bw_cli_usage_error (args->command, "unexpected argument '%s'", a), FALSE;
+    }
+  if (ov->given)
+    *output = ov->text;
+  if (*project == NULL)
+    return bw_cli_usage_error (args->command, "missing PROJECT"), FALSE;
+  return TRUE;
+}

@@ -77,7 +77,6 @@ run_render (BwCliArgs *args)
   g_autoptr (GError) error = NULL;
   g_autoptr (BwProject) p = NULL;
   const char *project = NULL, *output = NULL;
-  const BwOptValue *ov = bw_cli_get (args, "output");
   const BwOptValue *size = bw_cli_get (args, "size");
   const BwOptValue *style_opt = bw_cli_get (args, "style");
   BwProcessUnit *u;
@@ -85,27 +84,8 @@ run_render (BwCliArgs *args)
   BwExportFormat format;
   double w, h;
 
-  /* The parser hands "-o FILE" over as positional words; pick them out here. */
-  for (guint i = 0; args->positional[i]; i++)
-    {
-      const char *a = args->positional[i];
-      if (strcmp (a, "-o") == 0)
-        {
-          if (args->positional[i + 1] == NULL)
-            return bw_cli_usage_error (args->command, "-o needs a value");
-          if (output != NULL || ov->given)
-            return bw_cli_usage_error (args->command, "-o is given more than once");
-          output = args->positional[++i];
-        }
-      else if (project == NULL)
-        project = a;
-      else
-        return bw_cli_usage_error (args->command, "unexpected argument '%s'", a);
-    }
-  if (ov->given)
-    output = ov->text;
-  if (project == NULL)
-    return bw_cli_usage_error (args->command, "missing PROJECT");
+  if (!bw_cli_project_and_output (args, &project, &output))
+    return BW_CLI_EXIT_USAGE;
   if (output == NULL || *output == '\0')
     return bw_cli_usage_error (args->command, "-o: the output file is required");
 

@@ -29,34 +29,14 @@ run_report (BwCliArgs *args)
   g_autoptr (BwResults) r = NULL;
   g_autoptr (BwCriteriaSet) set = NULL;
   g_autoptr (GArray) checks = NULL;
-  const BwOptValue *ov = bw_cli_get (args, "output");
   const BwOptValue *pv = bw_cli_get (args, "paper");
   const BwOptValue *cv = bw_cli_get (args, "criteria");
   const char *project = NULL, *output = NULL;
   BwReportPaper paper = BW_REPORT_PAPER_A4;
   guint counts[4] = { 0 };
 
-  /* The parser hands "-o FILE" over as positional words; pick them out here. */
-  for (guint i = 0; args->positional[i]; i++)
-    {
-      const char *a = args->positional[i];
-      if (strcmp (a, "-o") == 0)
-        {
-          if (args->positional[i + 1] == NULL)
-            return bw_cli_usage_error (args->command, "-o needs a value");
-          if (output != NULL || ov->given)
-            return bw_cli_usage_error (args->command, "-o is given more than once");
-          output = args->positional[++i];
-        }
-      else if (project == NULL)
-        project = a;
-      else
-        return bw_cli_usage_error (args->command, "unexpected argument '%s'", a);
-    }
-  if (ov->given)
-    output = ov->text;
-  if (project == NULL)
-    return bw_cli_usage_error (args->command, "missing PROJECT");
+  if (!bw_cli_project_and_output (args, &project, &output))
+    return BW_CLI_EXIT_USAGE;
   if (output == NULL || *output == '\0')
     return bw_cli_usage_error (args->command, "-o: the output file is required");
   if (pv->given && !bw_report_paper_from_name (pv->text, &paper))

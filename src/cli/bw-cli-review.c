@@ -105,31 +105,12 @@ run_review (BwCliArgs *args)
   const BwOptValue *cv = bw_cli_get (args, "criteria");
   const double tol = bw_cli_get_double (args, "tolerance", 0.01);
   guint discrepancies = 0, unmatched = 0, fails = 0, warns = 0;
-  const BwOptValue *ov = bw_cli_get (args, "output"), *pv = bw_cli_get (args, "paper");
+  const BwOptValue *pv = bw_cli_get (args, "paper");
   const char *project = NULL, *output = NULL;
   BwReportPaper paper = BW_REPORT_PAPER_A4;
 
-  /* The parser hands "-o FILE" over as positional words; pick them out here. */
-  for (guint i = 0; args->positional[i]; i++)
-    {
-      const char *a = args->positional[i];
-      if (strcmp (a, "-o") == 0)
-        {
-          if (args->positional[i + 1] == NULL)
-            return bw_cli_usage_error (args->command, "-o needs a value");
-          if (output != NULL || ov->given)
-            return bw_cli_usage_error (args->command, "-o is given more than once");
-          output = args->positional[++i];
-        }
-      else if (project == NULL)
-        project = a;
-      else
-        return bw_cli_usage_error (args->command, "unexpected argument '%s'", a);
-    }
-  if (ov->given)
-    output = ov->text;
-  if (project == NULL)
-    return bw_cli_usage_error (args->command, "missing PROJECT");
+  if (!bw_cli_project_and_output (args, &project, &output))
+    return BW_CLI_EXIT_USAGE;
   if (pv->given)
     bw_report_paper_from_name (pv->text, &paper);
   if (!(tol > 0) || tol >= 1)

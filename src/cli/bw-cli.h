@@ -111,6 +111,12 @@ void bw_table_text (BwTable *t, const char *label, const char *text);
 void bw_table_number (BwTable *t, const char *label, double value, int sig);
 void bw_table_print_free (BwTable *t);
 
+/* For commands that take "PROJECT -o FILE": the option parser hands "-o FILE" over as positional
+ * words; this picks out the project and the output (from -o or the command's --output option,
+ * which it must have). OUTPUT is NULL when neither is given. On a usage error it prints one line
+ * and returns FALSE. */
+gboolean bw_cli_project_and_output (const BwCliArgs *args, const char **project, const char **output);
+
 /* TRUE once a run tried to print a value that is not finite; the output was withheld and main
  * exits with BW_CLI_EXIT_USAGE. */
 gboolean bw_cli_output_failed (void);
