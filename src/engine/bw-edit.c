@@ -24,6 +24,7 @@ typedef enum
   EDIT_RAW_WATER,
   EDIT_CASE,
   EDIT_CRITERIA,
+  EDIT_SNAPSHOT,
 } EditKind;
 
 struct _BwEdit
@@ -44,6 +45,7 @@ struct _BwEdit
   BwProcessUnit *held;  /* remove: the unit taken out, while applied */
   guint held_index;
   GArray *old_cases;    /* the load cases before apply, restored on revert */
+  BwProject *other;     /* snapshot: the state not in the project (after before apply, before after) */
   gboolean applied;
 };
 
@@ -72,6 +74,7 @@ bw_edit_free (BwEdit *edit)
   g_free (edit->old_text);
   g_clear_pointer (&edit->held, bw_process_unit_free);
   g_clear_pointer (&edit->old_cases, g_array_unref);
+  g_clear_pointer (&edit->other, bw_project_free);
   g_free (edit);
 }
 
@@ -223,6 +226,28 @@ bw_edit_set_criteria (const char *criteria)
   return e;
 }
 
+BwEdit *
+bw_edit_snapshot (const BwProject *after, const char *label, const char *unit_id)
+{
+  BwEdit *e;
+
+  g_return_val_if_fail (after != NULL && label != NULL, NULL);
+  e = edit_new (EDIT_SNAPSHOT, unit_id);
+  e->other = bw_project_copy (after);
+  e->label = g_strdup (label);
+  return e;
+}
+
+/* Exchanges the contents of two projects (both keep their addresses). */
+static void
+swap_projects (BwProject *a, BwProject *b)
+{
+  BwProject tmp = *a;
+
+  *a = *b;
+  *b = tmp;
+}
+
 const char *
 bw_edit_get_label (const BwEdit *edit)
 {
@@ -249,6 +274,7 @@ bw_edit_changes_layout (const BwEdit *edit)
     case EDIT_REMOVE:
     case EDIT_DUPLICATE:
     case EDIT_MOVE:
+    case EDIT_SNAPSHOT: /* it may change anything */
       return TRUE;
     default:
       return FALSE;
@@ -621,6 +647,9 @@ apply_change (BwEdit *e, BwProject *p, GError **error)
         e->label = g_strdup_printf ("%s load case %s", e->given ? "Enable" : "Disable", name);
         return TRUE;
       }
+    case EDIT_SNAPSHOT:
+      swap_projects (p, e->other);
+      return TRUE;
     case EDIT_CRITERIA:
       g_free (e->old_text);
       e->old_text = g_strdup (p->criteria);
@@ -707,6 +736,9 @@ revert_change (BwEdit *e, BwProject *p)
     case EDIT_CRITERIA:
       g_free (p->criteria);
       p->criteria = g_steal_pointer (&e->old_text);
+      break;
+    case EDIT_SNAPSHOT:
+      swap_projects (p, e->other);
       break;
     default:
       g_assert_not_reached ();

@@ -51,6 +51,11 @@ BwEdit *bw_edit_set_case_enabled (guint index, gboolean enabled);
 /* Chooses the criteria set (an id or a path). */
 BwEdit *bw_edit_set_criteria (const char *criteria);
 
+/* Replaces the whole project with a copy of AFTER (taken now), labelled LABEL ("Apply the
+ * auto-sized design"); revert restores the project as it was. For compound edits (several
+ * parameters at once, the chemistry basis, review records) that a single command does not
+ * cover. UNIT_ID (may be NULL) is what bw_edit_get_unit_id reports. */
+BwEdit *bw_edit_snapshot (const BwProject *after, const char *label, const char *unit_id);
 void bw_edit_free (BwEdit *edit);
 
 /* "Set length of North settling basin". */

@@ -73,6 +73,41 @@ START_TEST (test_edit_invalid_not_applied)
 }
 END_TEST
 
+/* A snapshot changes several things at once, undoes and redoes them as one edit, and an
+ * invalid snapshot leaves the project as it was. */
+START_TEST (test_edit_snapshot)
+{
+  g_autoptr (BwProject) p = plant ();
+  g_autoptr (BwProject) before = bw_project_copy (p);
+  g_autoptr (BwProject) after = bw_project_copy (p);
+  g_autoptr (BwProject) bad = bw_project_copy (p);
+  g_autoptr (GError) error = NULL;
+  BwEditStack *stack = bw_edit_stack_new ();
+
+  ck_assert (bw_process_unit_set (bw_project_find_unit (after, "sed", NULL), "length", 40, NULL));
+  ck_assert (bw_process_unit_set (bw_project_find_unit (after, "sed", NULL), "width", 9, NULL));
+  g_free (after->name);
+  after->name = g_strdup ("renamed plant");
+  ck_assert (bw_edit_stack_do (stack, p, bw_edit_snapshot (after, "Apply a design", "sed"),
+                               NULL, NULL, NULL));
+  ck_assert (bw_project_equal (p, after));
+  ck_assert_str_eq (bw_edit_get_label (bw_edit_stack_peek_undo (stack)), "Apply a design");
+  ck_assert_str_eq (bw_edit_get_unit_id (bw_edit_stack_peek_undo (stack)), "sed");
+  ck_assert (bw_edit_stack_undo (stack, p));
+  ck_assert (bw_project_equal (p, before));
+  ck_assert (bw_edit_stack_redo (stack, p));
+  ck_assert (bw_project_equal (p, after));
+  ck_assert (bw_edit_stack_undo (stack, p));
+
+  /* Standby equal to parallel is refused by validation: nothing changes. */
+  bw_project_find_unit (bad, "rm", NULL)->n_standby = bw_project_find_unit (bad, "rm", NULL)->n_parallel;
+  ck_assert (!bw_edit_stack_do (stack, p, bw_edit_snapshot (bad, "Bad", NULL), NULL, NULL, &error));
+  bw_assert_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE, "standby");
+  ck_assert (bw_project_equal (p, before));
+  bw_edit_stack_free (stack);
+}
+END_TEST
+
 START_TEST (test_edit_counts_regenerates_firm_cases)
 {
   g_autoptr (BwProject) p = plant ();
@@ -232,6 +267,7 @@ bw_test_suite (void)
 
   tcase_add_test (tc, test_edit_set_param_apply_revert);
   tcase_add_test (tc, test_edit_invalid_not_applied);
+  tcase_add_test (tc, test_edit_snapshot);
   tcase_add_test (tc, test_edit_counts_regenerates_firm_cases);
   tcase_add_test (tc, test_edit_add_remove_move_duplicate);
   tcase_add_test (tc, test_edit_basis_and_cases);
