@@ -15,6 +15,13 @@
 
 G_DEFINE_FINAL_TYPE (BwWindow, bw_window, GTK_TYPE_APPLICATION_WINDOW)
 
+enum
+{
+  SIGNAL_PROJECT_CHANGED,
+  N_SIGNALS
+};
+static guint window_signals[N_SIGNALS];
+
 static void nav_rebuild (BwWindow *self);
 static void nav_refresh (BwWindow *self);
 static void results_rebuild (BwWindow *self);
@@ -208,6 +215,7 @@ _bw_window_model_changed (BwWindow *self, gboolean structure)
   update_actions (self);
   if (self->sketch_area)
     gtk_widget_queue_draw (GTK_WIDGET (self->sketch_area));
+  g_signal_emit (self, window_signals[SIGNAL_PROJECT_CHANGED], 0, structure);
 }
 
 void
@@ -1061,6 +1069,42 @@ bw_window_show_page (BwWindow *self, const char *name)
     gtk_stack_set_visible_child_name (self->page_stack, name);
 }
 
+void
+bw_window_add_page (BwWindow *self, const char *name, const char *title, GtkWidget *child)
+{
+  g_return_if_fail (BW_IS_WINDOW (self));
+  g_return_if_fail (name != NULL && title != NULL && GTK_IS_WIDGET (child));
+  gtk_stack_add_titled (self->page_stack, child, name, title);
+}
+
+const BwResults *
+bw_window_get_results (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return self->results;
+}
+
+GArray *
+bw_window_get_checks (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return self->checks;
+}
+
+const BwCriteriaSet *
+bw_window_get_criteria (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return self->criteria;
+}
+
+BwUnitSystem
+bw_window_get_unit_system (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), BW_UNIT_SYSTEM_SI);
+  return self->units;
+}
+
 /* --- unit system --- */
 
 static void
@@ -1078,6 +1122,7 @@ unit_system_changed (GActionGroup *group, const char *name, GVariant *state, gpo
   _bw_window_refresh_basis (self);
   results_rebuild (self);
   checks_rebuild (self);
+  g_signal_emit (self, window_signals[SIGNAL_PROJECT_CHANGED], 0, FALSE);
 }
 
 /* --- recent files --- */
@@ -1317,6 +1362,13 @@ bw_window_class_init (BwWindowClass *klass)
   gtk_widget_class_install_action (widget_class, "win.move-down", NULL, action_move);
   gtk_widget_class_install_action (widget_class, "win.page", "s", action_page);
   _bw_window_files_class_init (widget_class);
+
+  /* BwWindow::project-changed (gboolean structure): after every edit, undo, redo, open, new and
+   * unit-system switch, once the results and checks are current. Pages added with
+   * bw_window_add_page listen to it to refresh themselves. */
+  window_signals[SIGNAL_PROJECT_CHANGED] =
+    g_signal_new ("project-changed", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0, NULL, NULL,
+                  NULL, G_TYPE_NONE, 1, G_TYPE_BOOLEAN);
 }
 
 static gboolean

@@ -4,7 +4,10 @@
 
 #include <gtk/gtk.h>
 
+#include "engine/bw-criteria.h"
 #include "engine/bw-edit.h"
+#include "engine/bw-evaluate.h"
+#include "engine/bw-units.h"
 #include "engine/bw-project.h"
 #include "gui/bw-application.h"
 
@@ -57,5 +60,19 @@ char *bw_window_dup_results_text (BwWindow *self);
 char *bw_window_autosave_now (BwWindow *self);
 /* Shows the offer to recover the autosave at PATH (from an earlier session). */
 void bw_window_offer_recovery (BwWindow *self, const char *path);
+
+/* --- for pages beyond the built-in four --- */
+
+/* Adds CHILD as a page NAME titled TITLE to the window's page stack (bw_window_show_page and
+ * win.page('NAME') then reach it). The page listens to ::project-changed to refresh. */
+void bw_window_add_page (BwWindow *self, const char *name, const char *title, GtkWidget *child);
+
+/* The results of the project as it is now (NULL when it does not evaluate), the checks against
+ * the chosen criteria set (NULL when there is none), that set, and the unit system shown. All
+ * borrowed and valid until the next ::project-changed. */
+const BwResults *bw_window_get_results (BwWindow *self);
+GArray *bw_window_get_checks (BwWindow *self);
+const BwCriteriaSet *bw_window_get_criteria (BwWindow *self);
+BwUnitSystem bw_window_get_unit_system (BwWindow *self);
 
 G_END_DECLS
