@@ -238,6 +238,17 @@ bw_write_atomic (const char *path, const char *data, gsize len, GError **error)
   g_return_val_if_fail (path != NULL && data != NULL, FALSE);
   dir = g_path_get_dirname (path);
   base = g_path_get_basename (path);
+  /* The rename below needs only the folder's permission, so without this check a file whose
+   * write permission was taken away would be replaced all the same (GIO's g_file_replace
+   * refuses it too). ENOENT: a new file, or a missing folder that mkstemp reports. */
+  if (g_access (path, W_OK) != 0 && errno != ENOENT)
+    {
+      saved = errno;
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE,
+                   "%s: the file cannot be overwritten (%s); it is untouched", path,
+                   g_strerror (saved));
+      return FALSE;
+    }
   tmpl = g_strdup_printf ("%s/.%s.XXXXXX", dir, base);
   fd = g_mkstemp_full (tmpl, O_WRONLY | O_CLOEXEC, 0644);
   if (fd < 0)

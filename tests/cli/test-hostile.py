@@ -97,6 +97,14 @@ rows += [
     (["review", demo_path, "--stated", file_with("s1.csv", "element,quantity,case,value,unit\nnorth-sed,G,max,1e999,1/s\n")], "s1.csv:2:"),
     (["review", demo_path, "--stated", file_with("s2.csv", "element,quantity,case,value,unit\n,G,max,1,1/s\n")], "element"),
 ]
+# Saves that cannot be written (these hold as root too, unlike permission bits).
+os.mkdir(os.path.join(tmp, "a-folder.bwproj"))
+rows += [
+    (["autosize", demo_path, "--unit", "north-sed", "--apply", "1", "--output",
+      os.path.join(tmp, "no-such-folder", "out.bwproj")], "No such file or directory"),
+    (["autosize", demo_path, "--unit", "north-sed", "--apply", "1", "--output",
+      os.path.join(tmp, "a-folder.bwproj")], "Is a directory"),
+]
 
 for args, needle in rows:
     p = subprocess.run([CLI, *args], capture_output=True, timeout=120)
