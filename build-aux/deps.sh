@@ -9,8 +9,11 @@ BW_PACKAGES=(
   libglib2.0-dev libgtk-4-dev libcairo2-dev libpango1.0-dev libxml2-dev libxml2-utils
   # tests
   check python3 python3-iapws python3-fluids python3-numpy units
-  poppler-utils librsvg2-bin xvfb xauth
+  poppler-utils librsvg2-bin xvfb xauth xdotool
   desktop-file-utils appstream-util gettext
+  # translations: msgfmt/xgettext (gettext), and the es_ES source data that localedef builds
+  # the Spanish test locale from (locales)
+  locales
 )
 
 bw_install_deps () {

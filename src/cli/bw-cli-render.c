@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "cli/bw-cli.h"
+#include "draw/bw-chart-jartest.h"
 #include "draw/bw-charts.h"
 #include "engine/bw-evaluate.h"
 #include "io/bw-criteria-xml.h"
@@ -25,9 +26,10 @@
 
 static const BwOptSpec render_specs[] = {
   { "unit", BW_OPT_STRING, 0, NULL, NULL, TRUE, "ID", "id of the unit to draw", NULL },
-  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section|schematic|taper|settling|removal|power|checks", TRUE,
-    "NAME", "which view (schematic: the unit's train with its results; taper, settling, removal, "
-    "power, checks: charts)", NULL },
+  { "view", BW_OPT_CHOICE, 0, NULL, "plan|section|schematic|taper|settling|removal|iso-removal|power|checks|jartest",
+    TRUE, "NAME", "which view (schematic: the unit's train with its results; taper, settling, "
+    "removal, iso-removal, power, checks: charts; jartest: the jar-test record named by --unit)",
+    NULL },
   { "format", BW_OPT_CHOICE, 0, NULL, "png|svg|pdf", TRUE, "FORMAT", "file format", NULL },
   { "size", BW_OPT_STRING, 0, NULL, NULL, FALSE, "WxH",
     "canvas in pixels (png) or points (svg, pdf); default 1600x1000 or 842x595", NULL },
@@ -105,6 +107,34 @@ run_render (BwCliArgs *args)
   p = bw_project_load (project, &error);
   if (p == NULL)
     return bw_cli_usage_error (args->command, "%s", error->message);
+  if (strcmp (bw_cli_get (args, "view")->text, "jartest") == 0)
+    {
+      /* The jar-test chart: --unit names a jar-test record, not a process unit. */
+      const char *id = bw_cli_get (args, "unit")->text;
+      g_autoptr (BwChart) chart = NULL;
+      if (bw_chart_jartest_find_record (p, id) == NULL)
+        return bw_cli_usage_error (args->command, "--unit: no jar-test record '%s' in %s (--view "
+                                   "jartest draws a jar test)", id, project);
+      chart = bw_chart_jartest_of_project (p, id, -1, args->units, &error);
+      if (chart == NULL)
+        return bw_cli_usage_error (args->command, "--unit: %s", error->message);
+      if (!bw_export_chart (chart, style_opt->given && strcmp (style_opt->text, "dark") == 0
+                                       ? bw_style_dark () : bw_style_light (),
+                            format, output, w, h, &error))
+        return bw_cli_usage_error (args->command, "%s", error->message);
+      if (args->json)
+        {
+          BwJson *j = bw_json_new ();
+          bw_json_string (j, "file", output);
+          bw_json_string (j, "unit", id);
+          bw_json_string (j, "view", "jartest");
+          bw_json_string (j, "format", bw_export_format_name (format));
+          bw_json_number (j, "width", w);
+          bw_json_number (j, "height", h);
+          bw_json_print_free (j);
+        }
+      return BW_CLI_EXIT_OK;
+    }
   u = bw_project_find_unit (p, bw_cli_get (args, "unit")->text, NULL);
   if (u == NULL)
     return bw_cli_usage_error (args->command, "--unit: no unit '%s' in %s",
@@ -128,6 +158,8 @@ run_render (BwCliArgs *args)
         chart = bw_chart_settling_curves (p, r, u->id, 0, args->units, &error);
       else if (strcmp (name, "removal") == 0)
         chart = bw_chart_removal_curves (p, r, u->id, args->units, &error);
+      else if (strcmp (name, "iso-removal") == 0)
+        chart = bw_chart_iso_removal (p, r, u->id, args->units, &error);
       else if (strcmp (name, "power") == 0)
         chart = bw_chart_impeller_power (p, r, checks, u->id, args->units, &error);
       else if (checks)
@@ -190,5 +222,7 @@ const BwCliCommand bw_cli_cmd_render = {
   "Charts: taper (a flocculator's G and Gt by stage), settling (velocity against diameter with a\n"
   "basin's overflow rate), removal (against overflow rate), power (a rapid mix's or turbine's\n"
   "power and G against speed), checks (the checks across the load cases; any unit).\n"
+  "jartest: a jar-test record of the project (its id as --unit): turbidity and zeta against dose,\n"
+  "with the chosen dose range.\n"
   "--units us labels dimensions and the scale bar in feet. --json reports what was written.",
 };

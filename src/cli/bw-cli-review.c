@@ -83,10 +83,11 @@ const BwCliCommand bw_cli_cmd_export = {
 /* --- review --- */
 
 static const BwOptSpec review_specs[] = {
-  { "stated", BW_OPT_STRING, 0, NULL, NULL, TRUE, "FILE.csv",
-    "the values the submittal states (element,quantity,case,value,unit[,comment])", NULL },
+  { "stated", BW_OPT_STRING, 0, NULL, NULL, FALSE, "FILE.csv",
+    "the values the submittal states (element,quantity,case,value,unit[,comment]); default the "
+    "project's review record", NULL },
   { "tolerance", BW_OPT_QUANTITY, BW_KIND_FRACTION, NULL, NULL, FALSE, "TOL",
-    "relative difference flagged as a discrepancy (default 1%)", "tolerance" },
+    "relative difference flagged as a discrepancy (default the project's, else 1%)", "tolerance" },
   { "criteria", BW_OPT_STRING, 0, NULL, NULL, FALSE, "NAME|FILE", "criteria set (default the project's)", NULL },
   { "output", BW_OPT_STRING, 0, NULL, NULL, FALSE, "FILE.pdf", "write the findings report as PDF (same as -o FILE.pdf)", NULL },
   { "paper", BW_OPT_CHOICE, 0, NULL, "a4|letter", FALSE, "SIZE", "paper of the findings report (default a4)", NULL },
@@ -100,10 +101,13 @@ run_review (BwCliArgs *args)
   g_autoptr (BwResults) r = NULL;
   g_autoptr (BwCriteriaSet) set = NULL;
   g_autoptr (GArray) checks = NULL;
-  g_autoptr (GPtrArray) stated = NULL;
+  g_autoptr (GPtrArray) stated_csv = NULL;
+  GPtrArray *stated = NULL; /* the CSV's, or borrowed from the project */
   g_autoptr (GArray) findings = NULL;
   const BwOptValue *cv = bw_cli_get (args, "criteria");
-  const double tol = bw_cli_get_double (args, "tolerance", 0.01);
+  const BwOptValue *stated_opt = bw_cli_get (args, "stated");
+  const gboolean tol_given = bw_cli_get (args, "tolerance")->given;
+  double tol = bw_cli_get_double (args, "tolerance", BW_REVIEW_TOLERANCE_DEFAULT);
   guint discrepancies = 0, unmatched = 0, fails = 0, warns = 0;
   const BwOptValue *pv = bw_cli_get (args, "paper");
   const char *project = NULL, *output = NULL;
@@ -113,13 +117,27 @@ run_review (BwCliArgs *args)
     return BW_CLI_EXIT_USAGE;
   if (pv->given)
     bw_report_paper_from_name (pv->text, &paper);
-  if (!(tol > 0) || tol >= 1)
+  if (!(tol > 0) || tol > 1)
     return bw_cli_usage_error (args->command, "--tolerance: must lie between 0 and 100%%");
-  stated = bw_stated_load_csv (bw_cli_get (args, "stated")->text, &error);
-  if (stated == NULL)
-    return bw_cli_usage_error (args->command, "--stated: %s", error->message);
+  if (stated_opt->given)
+    {
+      stated_csv = bw_stated_load_csv (stated_opt->text, &error);
+      if (stated_csv == NULL)
+        return bw_cli_usage_error (args->command, "--stated: %s", error->message);
+      stated = stated_csv;
+    }
   if (!load_evaluated (args->command, project, cv->given ? cv->text : NULL, &p, &r, &set, &checks))
     return BW_CLI_EXIT_USAGE;
+  if (stated == NULL)
+    {
+      /* No CSV: the review record kept in the project, at its tolerance unless one is given. */
+      if (p->stated->len == 0)
+        return bw_cli_usage_error (args->command, "--stated: %s holds no stated values; give "
+                                   "--stated FILE.csv", project);
+      stated = p->stated;
+      if (!tol_given)
+        tol = p->review_tolerance;
+    }
   findings = bw_review (r, stated, checks, tol);
   for (guint i = 0; i < findings->len; i++)
     {
@@ -209,7 +227,7 @@ run_review (BwCliArgs *args)
           if (f->stated)
             {
               const BwQuantityInfo *info = bw_quantity_info (f->stated->quantity);
-              g_autofree char *sv = bw_units_format (f->stated->value, info->kind, args->units);
+              g_autofree char *stv = bw_units_format (f->stated->value, info->kind, args->units);
               g_autofree char *cvs = f->kind != BW_FINDING_NOT_COMPUTED
                                        ? bw_units_format (f->computed, info->kind, args->units)
                                        : g_strdup ("—");
@@ -217,7 +235,7 @@ run_review (BwCliArgs *args)
                 continue;
               printf ("  %-13s line %-4u %-16s %-26s stated %-14s computed %-14s%s%s\n",
                       bw_finding_kind_name (f->kind), f->stated->line, f->stated->element,
-                      info->label, sv, cvs, f->stated->comment ? "  # " : "",
+                      info->label, stv, cvs, f->stated->comment ? "  # " : "",
                       f->stated->comment ? f->stated->comment : "");
             }
           else
@@ -239,7 +257,8 @@ const BwCliCommand bw_cli_cmd_review = {
   "review", "Stated-versus-computed discrepancies and criteria findings of a submittal.",
   "PROJECT [-o FILE.pdf]", 1, 3, review_specs, G_N_ELEMENTS (review_specs), run_review,
   "The stated CSV names each value's element, quantity, case (a load-case id, max or min), value\n"
-  "and unit. Exit 1 when a required criterion fails, 0 otherwise (discrepancies are listed and\n"
+  "and unit. Without --stated, the stated values, comments and tolerance kept in the project's\n"
+  "review record are used. Exit 1 when a required criterion fails, 0 otherwise (discrepancies are listed and\n"
   "counted either way).",
 };
 

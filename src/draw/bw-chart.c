@@ -9,6 +9,7 @@
 
 #include "draw/bw-chart.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <pango/pangocairo.h>
 #include <string.h>
@@ -1804,8 +1805,10 @@ paint_matrix (const Ctx *c, const BwChart *ch, const BwChartFrame *f, const Matr
     }
   if (f->rows_shown < m->n_rows)
     {
-      g_autofree char *t = g_strdup_printf ("… %u more rows not shown at this size",
-                                            m->n_rows - f->rows_shown);
+      const guint more = m->n_rows - f->rows_shown;
+      g_autofree char *t = g_strdup_printf (ngettext ("… %u more row not shown at this size",
+                                                      "… %u more rows not shown at this size", more),
+                                            more);
       BwRect box = { pad (c), 0, w - 2 * pad (c), h };
       draw_text (c, t, c->small, FALSE, pad (c), p->y + p->height + 2 * c->s, 0, 0, &box, 0,
                  c->style->ink_muted);
@@ -1815,9 +1818,10 @@ paint_matrix (const Ctx *c, const BwChart *ch, const BwChartFrame *f, const Matr
   {
     const BwCheckStatus st[] = { BW_CHECK_PASS, BW_CHECK_WARN, BW_CHECK_FAIL,
                                  BW_CHECK_NOT_APPLICABLE };
-    const char *names[] = { "pass", "warn: outside preferred", "fail: outside required",
-                            "not applicable" };
-    const char *short_names[] = { "pass", "warn", "fail", "n/a" };
+    const char *names[] = { C_("check", "pass"), _("warn: outside preferred"),
+                            _("fail: outside required"), _("not applicable") };
+    const char *short_names[] = { C_("check", "pass"), C_("check", "warn"), C_("check", "fail"),
+                                  C_("check", "n/a") };
     double sw = small_h * 1.3, x = f->legend.x, total = 0;
     gboolean use_short = FALSE;
     for (guint k = 0; k < 4; k++)
@@ -1864,7 +1868,7 @@ bw_chart_paint (const BwChart *chart, const BwStyle *style, cairo_t *cr, double 
     {
       BwRect box = { 0, 0, width, height };
       draw_titles (&c, chart, width, height);
-      draw_text (&c, "No data to chart", c.body, FALSE, 0.5 * width, 0.5 * height, 0.5, 0.5,
+      draw_text (&c, _("No data to chart"), c.body, FALSE, 0.5 * width, 0.5 * height, 0.5, 0.5,
                  &box, 0, style->ink_muted);
     }
   else if (chart->kind == BW_CHART_MATRIX)

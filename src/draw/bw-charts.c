@@ -6,9 +6,11 @@
 
 #include "draw/bw-charts.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
+#include "engine/bw-axis.h"
 #include "engine/bw-error.h"
 #include "engine/bw-mixing.h"
 #include "engine/bw-removal.h"
@@ -156,9 +158,9 @@ add_limit_rules (BwChart *ch, GArray *checks, int ei, BwQuantity q, const BwUnit
             done[n_done++] = v;
             {
               g_autofree char *val = fmt (v, bw_quantity_info (q)->kind, system);
-              g_autofree char *label = g_strdup_printf ("%s %s %s%s", side == 0 ? "min" : "max",
+              g_autofree char *label = g_strdup_printf ("%s %s %s%s", side == 0 ? _("min") : _("max"),
                                                         side == 0 ? "≥" : "≤", val,
-                                                        l == 1 ? " (preferred)" : "");
+                                                        l == 1 ? _(" (preferred)") : "");
               BwChartRule *rule = bw_chart_add_rule (ch, FALSE, to_display (u, v), label,
                                                      BW_CHART_MUTED,
                                                      l == 0 ? BW_DASH_DASHED : BW_DASH_DOTTED);
@@ -182,10 +184,10 @@ stage_kind (BwProcessType t)
 {
   switch (t)
     {
-    case BW_STAGE_PADDLE: return "paddle";
-    case BW_STAGE_TURBINE: return "turbine";
-    case BW_STAGE_BAFFLED: return "baffled";
-    default: return "stage";
+    case BW_STAGE_PADDLE: return _("paddle");
+    case BW_STAGE_TURBINE: return _("turbine");
+    case BW_STAGE_BAFFLED: return _("baffled");
+    default: return _("stage");
     }
 }
 
@@ -215,27 +217,27 @@ bw_chart_floc_taper (const BwProject *p, const BwResults *r, GArray *checks, con
     return NULL;
 
   ch = bw_chart_new (BW_CHART_XY, NULL);
-  ch->title = g_strdup_printf ("%s: mixing intensity by stage", floc->unit->name);
+  ch->title = g_strdup_printf (_("%s: mixing intensity by stage"), floc->unit->name);
   {
     g_autofree char *flow = case_flow_label (r, cold);
     g_autofree char *tc = fmt_temp (p->basis.temperature_K[BW_TEMP_COLDEST], system);
     g_autofree char *tw = fmt_temp (p->basis.temperature_K[BW_TEMP_WARMEST], system);
-    ch->subtitle = g_strdup_printf ("At %s flow, all units in service; water at %s and %s", flow,
+    ch->subtitle = g_strdup_printf (_("At %s flow, all units in service; water at %s and %s"), flow,
                                     tc, tw);
   }
-  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, "Stage (in flow order)", NULL);
-  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, "Velocity gradient G", ug->symbol);
+  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, _("Stage (in flow order)"), NULL);
+  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, _("Velocity gradient G"), ug->symbol);
   ch->y.include_zero = TRUE;
-  bw_chart_axis_set (&ch->y2, BW_AXIS_LINEAR, "Gt of the stage", NULL);
+  bw_chart_axis_set (&ch->y2, BW_AXIS_LINEAR, _("Gt of the stage"), NULL);
   ch->y2.include_zero = TRUE;
   ch->has_y2 = TRUE;
   {
     g_autofree char *tc = fmt_temp (p->basis.temperature_K[BW_TEMP_COLDEST], system);
     g_autofree char *tw = fmt_temp (p->basis.temperature_K[BW_TEMP_WARMEST], system);
-    g_autofree char *l1 = g_strdup_printf ("G at %s", tc);
-    g_autofree char *l2 = g_strdup_printf ("G at %s", tw);
-    g_autofree char *l3 = g_strdup_printf ("Gt at %s (right axis)", tc);
-    g_autofree char *l4 = g_strdup_printf ("Gt at %s (right axis)", tw);
+    g_autofree char *l1 = g_strdup_printf (_("G at %s"), tc);
+    g_autofree char *l2 = g_strdup_printf (_("G at %s"), tw);
+    g_autofree char *l3 = g_strdup_printf (_("Gt at %s (right axis)"), tc);
+    g_autofree char *l4 = g_strdup_printf (_("Gt at %s (right axis)"), tw);
     gt_cold = bw_chart_add_series (ch, l3, BW_SERIES_BARS, C_FILL_A, BW_MARKER_NONE,
                                    BW_DASH_SOLID, FALSE);
     gt_warm = bw_chart_add_series (ch, l4, BW_SERIES_BARS, C_FILL_B, BW_MARKER_NONE,
@@ -286,8 +288,8 @@ bw_chart_floc_taper (const BwProject *p, const BwResults *r, GArray *checks, con
       {
         g_autofree char *t = fmt (gt_total, BW_KIND_NUMBER, system);
         g_autofree char *tc = fmt_temp (p->basis.temperature_K[BW_TEMP_COLDEST], system);
-        ch->footnote = g_strdup_printf ("Gt of the whole flocculator at %s: %s. Preliminary: "
-                                        "verify with a licensed engineer.", tc, t);
+        ch->footnote = g_strdup_printf (_("Gt of the whole flocculator at %s: %s. Preliminary: "
+                                          "verify with a licensed engineer."), tc, t);
       }
   }
   return g_steal_pointer (&ch);
@@ -355,17 +357,17 @@ bw_chart_settling_curves (const BwProject *p, const BwResults *r, const char *ba
                          : 2.65;
 
   ch = bw_chart_new (BW_CHART_XY, NULL);
-  ch->title = g_strdup_printf ("%s: settling velocity of discrete particles", e->unit->name);
-  ch->subtitle = g_strdup_printf ("Spheres of specific gravity %.3g; drag after Clift and Gauvin; "
-                                  "regimes shown for the coldest water", specific_gravity);
-  bw_chart_axis_set (&ch->x, BW_AXIS_LOG, "Particle diameter", ud->symbol);
-  bw_chart_axis_set (&ch->y, BW_AXIS_LOG, "Settling velocity", uv->symbol);
+  ch->title = g_strdup_printf (_("%s: settling velocity of discrete particles"), e->unit->name);
+  ch->subtitle = g_strdup_printf (_("Spheres of specific gravity %.3g; drag after Clift and Gauvin; "
+                                    "regimes shown for the coldest water"), specific_gravity);
+  bw_chart_axis_set (&ch->x, BW_AXIS_LOG, _("Particle diameter"), ud->symbol);
+  bw_chart_axis_set (&ch->y, BW_AXIS_LOG, _("Settling velocity"), uv->symbol);
 
   for (guint t = 0; t < G_N_ELEMENTS (temps); t++)
     {
       const double T = p->basis.temperature_K[temps[t]];
       g_autofree char *tl = fmt_temp (T, system);
-      g_autofree char *label = g_strdup_printf ("Water at %s", tl);
+      g_autofree char *label = g_strdup_printf (_("Water at %s"), tl);
       BwChartSeries *s = bw_chart_add_series (ch, label, BW_SERIES_LINE, t == 0 ? C_COLD : C_WARM,
                                               BW_MARKER_NONE,
                                               t == 0 ? BW_DASH_SOLID : BW_DASH_DASHED, TRUE);
@@ -391,7 +393,7 @@ bw_chart_settling_curves (const BwProject *p, const BwResults *r, const char *ba
   /* Regime bands: each runs between the geometric midpoints of the grid points where the
    * engine's regime changes. */
   {
-    const char *names[] = { "Stokes (Re < 1)", "transitional", "Newton (Re ≥ 1000)" };
+    const char *names[] = { _("Stokes (Re < 1)"), _("transitional"), _("Newton (Re ≥ 1000)") };
     const guint colours[] = { C_FILL_A, C_FILL_B, C_THIRD };
     guint start = 0;
     for (guint i = 1; i <= SETTLING_POINTS; i++)
@@ -408,7 +410,7 @@ bw_chart_settling_curves (const BwProject *p, const BwResults *r, const char *ba
   {
     g_autofree char *hi = fmt (ov_hi, BW_KIND_SURFACE_LOADING, system);
     g_autofree char *flow = case_flow_label (r, c_hi);
-    g_autofree char *label = g_strdup_printf ("overflow rate at %s: %s", flow, hi);
+    g_autofree char *label = g_strdup_printf (_("overflow rate at %s: %s"), flow, hi);
     bw_chart_add_rule (ch, FALSE, to_display (uv, ov_hi), label, BW_CHART_INK, BW_DASH_SOLID);
     if (ov_hi > ov_lo * 1.0001)
       bw_chart_add_band (ch, FALSE, to_display (uv, ov_lo), to_display (uv, ov_hi), NULL,
@@ -421,15 +423,15 @@ bw_chart_settling_curves (const BwProject *p, const BwResults *r, const char *ba
     if (vs > 0)
       {
         g_autofree char *v = fmt (vs, BW_KIND_SURFACE_LOADING, system);
-        g_autofree char *label = g_strdup_printf ("design settling velocity %s", v);
+        g_autofree char *label = g_strdup_printf (_("design settling velocity %s"), v);
         BwChartRule *rule = bw_chart_add_rule (ch, FALSE, to_display (uv, vs), label,
                                                BW_CHART_MUTED, BW_DASH_DASHED);
         rule->label_start = TRUE;
         rule->label_below = vs < ov_hi; /* apart from the overflow rate's label above its line */
       }
   }
-  ch->footnote = g_strdup ("Shaded across: the basin's overflow rates over all load cases. "
-                           "Particles above a line settle faster than it.");
+  ch->footnote = g_strdup (_("Shaded across: the basin's overflow rates over all load cases. "
+                             "Particles above a line settle faster than it."));
   return g_steal_pointer (&ch);
 }
 
@@ -445,7 +447,7 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
   const BwUnit *uv = unit_of (BW_KIND_SURFACE_LOADING, system);
   g_autoptr (BwChart) ch = NULL;
   const double hazen_n[] = { 1, 3, 5 };
-  const char *hazen_word[] = { "very poor", "good", "very good" };
+  const char *hazen_word[] = { _("very poor"), _("good"), _("very good") };
   const BwDash hazen_dash[] = { BW_DASH_DOTTED, BW_DASH_DASHED, BW_DASH_DASHED };
   const guint hazen_colour[] = { C_WARM, C_THIRD, C_FOURTH };
   double vs, ov_lo = 0, ov_hi = 0, x_max;
@@ -471,22 +473,22 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
   x_max = MAX (2.0 * vs, 1.25 * ov_hi);
 
   ch = bw_chart_new (BW_CHART_XY, NULL);
-  ch->title = g_strdup_printf ("%s: removal against overflow rate", e->unit->name);
+  ch->title = g_strdup_printf (_("%s: removal against overflow rate"), e->unit->name);
   {
     g_autofree char *v = fmt (vs, BW_KIND_SURFACE_LOADING, system);
-    ch->subtitle = g_strdup_printf ("Design particle settling at %s; ideal (Camp) basin and "
-                                    "Hazen basins of performance n", v);
+    ch->subtitle = g_strdup_printf (_("Design particle settling at %s; ideal (Camp) basin and "
+                                      "Hazen basins of performance n"), v);
   }
-  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, "Surface overflow rate", uv->symbol);
+  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, _("Surface overflow rate"), uv->symbol);
   ch->x.fixed = TRUE;
   ch->x.min = 0;
   ch->x.max = to_display (uv, x_max);
-  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, "Fraction removed", "%");
+  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, _("Fraction removed"), "%");
   ch->y.fixed = TRUE;
   ch->y.min = 0;
   ch->y.max = 105; /* headroom, so the ideal basin's 100 % does not sit on the frame */
 
-  s = bw_chart_add_series (ch, "Ideal basin (Camp)", BW_SERIES_LINE, C_COLD, BW_MARKER_NONE,
+  s = bw_chart_add_series (ch, _("Ideal basin (Camp)"), BW_SERIES_LINE, C_COLD, BW_MARKER_NONE,
                            BW_DASH_SOLID, TRUE);
   for (guint i = 1; i <= REMOVAL_POINTS; i++)
     {
@@ -497,7 +499,7 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
     }
   for (guint k = 0; k < G_N_ELEMENTS (hazen_n); k++)
     {
-      g_autofree char *label = g_strdup_printf ("Hazen n = %g (%s)", hazen_n[k], hazen_word[k]);
+      g_autofree char *label = g_strdup_printf (_("Hazen n = %g (%s)"), hazen_n[k], hazen_word[k]);
       s = bw_chart_add_series (ch, label, BW_SERIES_LINE, hazen_colour[k], BW_MARKER_NONE,
                                hazen_dash[k], TRUE);
       for (guint i = 1; i <= REMOVAL_POINTS; i++)
@@ -511,7 +513,7 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
 
   /* The load cases: one point per flow (the overflow rate does not depend on temperature),
    * all units in service, with the engine's removal. */
-  pts = bw_chart_add_series (ch, "Load cases (engine results)", BW_SERIES_LINE, BW_CHART_INK,
+  pts = bw_chart_add_series (ch, _("Load cases (engine results)"), BW_SERIES_LINE, BW_CHART_INK,
                              BW_MARKER_DIAMOND, BW_DASH_SOLID, FALSE);
   for (int f = 0; f < BW_N_FLOW_KINDS; f++)
     {
@@ -525,13 +527,195 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
     }
   {
     g_autofree char *v = fmt (vs, BW_KIND_SURFACE_LOADING, system);
-    g_autofree char *label = g_strdup_printf ("overflow rate = settling velocity (%s)", v);
+    g_autofree char *label = g_strdup_printf (_("overflow rate = settling velocity (%s)"), v);
     BwChartRule *rule = bw_chart_add_rule (ch, TRUE, to_display (uv, vs), label, BW_CHART_MUTED,
                                            BW_DASH_DOTTED);
     rule->label_start = TRUE;
   }
-  ch->footnote = g_strdup ("Camp: min(1, vs/v0). Hazen: 1 − (1 + vs/(n v0))^−n. "
-                           "Preliminary: verify with a licensed engineer.");
+  ch->footnote = g_strdup (_("Camp: min(1, vs/v0). Hazen: 1 − (1 + vs/(n v0))^−n. "
+                             "Preliminary: verify with a licensed engineer."));
+  return g_steal_pointer (&ch);
+}
+
+/* --- (f) iso-removal diagram --- */
+
+/* The column time (s) at which port J first reaches removal LEVEL (0-1): linear between readings
+ * and from R = 0 at t = 0, as the engine's Type II profile interpolates (bw-removal.c); FALSE
+ * when the port never reaches it during the test. */
+static gboolean
+iso_time (const BwSettlingColumn *c, guint j, double level, double *out)
+{
+  double t0 = 0.0, r0 = 0.0;
+
+  for (guint k = 0; k < c->n_times; k++)
+    {
+      const double r1 = c->removal[j][k], t1 = c->time_s[k];
+      if (r1 >= level)
+        {
+          /* r0 < level <= r1, so r1 - r0 > 0. */
+          *out = t0 + (level - r0) / (r1 - r0) * (t1 - t0);
+          return TRUE;
+        }
+      t0 = t1;
+      r0 = r1;
+    }
+  return FALSE;
+}
+
+BwChart *
+bw_chart_iso_removal (const BwProject *p, const BwResults *r, const char *basin_id,
+                      BwUnitSystem system, GError **error)
+{
+  const BwElementResult *e;
+  const BwColumnTestRecord *rec;
+  const BwUnit *ut = unit_named ("min", BW_KIND_TIME);
+  const BwUnit *ud = unit_of (BW_KIND_LENGTH, system);
+  const int dc = r ? bw_charts_design_case (r, BW_TEMP_COLDEST) : -1;
+  g_autoptr (BwChart) ch = NULL;
+  g_autoptr (GError) local = NULL;
+  BwSettlingColumn col;
+  BwType2Options opts;
+  BwType2Result res;
+  double v0 = 0, depth_basin = 0, deepest, d_step, d_bottom, t_raw, t_step, t_max, t_end;
+  int d_exp, t_exp, decimals;
+  guint n_cat, curves = 0;
+  BwChartSeries *s;
+
+  g_return_val_if_fail (p != NULL && r != NULL, NULL);
+  if (!(e = find_element (r, basin_id, NULL, error)))
+    return NULL;
+  if (!is_basin (e) || !value_at (e, dc, BW_Q_OVERFLOW_RATE, &v0) || !(v0 > 0))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "unit: '%s' is not a settling basin with an overflow rate in the design case",
+                   basin_id);
+      return NULL;
+    }
+  rec = bw_project_column_test_for (p, basin_id);
+  if (rec == NULL)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "column test: no settling-column test applies to '%s', so no iso-removal "
+                   "chart (add one that names it in applies-to)", basin_id);
+      return NULL;
+    }
+  if (!bw_column_test_record_column (rec, &col, error))
+    return NULL;
+  deepest = col.depth_m[col.n_depths - 1];
+  if (!value_at (e, dc, BW_Q_SIDE_WATER_DEPTH, &depth_basin))
+    depth_basin = bw_process_unit_get (e->unit, "side-water-depth");
+  bw_type2_options_init (&opts);
+  opts.depth_m = MIN (depth_basin, deepest);
+  if (!bw_type2_removal_at_overflow (&col, &opts, v0, &res, &local))
+    {
+      g_autofree char *v = fmt (v0, BW_KIND_SURFACE_LOADING, system);
+      g_set_error (error, BW_ENGINE_ERROR, local->code,
+                   "column test %s: at %s's overflow rate of %s: %s", rec->id, basin_id, v,
+                   local->message);
+      return NULL;
+    }
+
+  /* Depth axis: categories from the bottom (i = 0) up to the surface, on a 1-2-5 step. */
+  d_step = bw_axis_nice_step (to_display (ud, deepest) / 6.0, &d_exp);
+  n_cat = (guint) ceil (to_display (ud, deepest) / d_step - 1e-9) + 1;
+  d_bottom = (n_cat - 1) * d_step; /* display units */
+  decimals = MAX (0, -d_exp);
+  t_raw = 1.05 * to_display (ut, MAX (col.time_s[col.n_times - 1], res.detention_s));
+  t_step = bw_axis_nice_step (t_raw / 6.0, &t_exp);
+  t_max = ceil (t_raw / t_step) * t_step;
+#define ISO_Y(depth_m) ((double) (n_cat - 1) - to_display (ud, (depth_m)) / d_step)
+
+  ch = bw_chart_new (BW_CHART_XY, NULL);
+  ch->title = g_strdup_printf (_("%s: iso-removal curves (Type II settling)"), e->unit->name);
+  {
+    g_autofree char *h = fmt (res.depth_m, BW_KIND_LENGTH, system);
+    g_autofree char *hb = fmt (depth_basin, BW_KIND_LENGTH, system);
+    g_autofree char *name = g_strdup (rec->name ? rec->name : rec->id);
+    if (depth_basin > deepest)
+      ch->subtitle = g_strdup_printf (_("Column test %s; the basin (%s deep) is evaluated at the "
+                                        "deepest port, %s"), name, hb, h);
+    else
+      ch->subtitle = g_strdup_printf (_("Column test %s; evaluated at the basin's depth, %s"), name, h);
+  }
+  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, _("Column time"), ut->symbol);
+  ch->x.fixed = TRUE;
+  ch->x.min = 0;
+  ch->x.max = t_max;
+  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, _("Depth below the surface"), ud->symbol);
+  for (guint i = 0; i < n_cat; i++)
+    {
+      g_autofree char *label = g_strdup_printf ("%.*f", decimals, d_bottom - i * d_step);
+      bw_chart_axis_add_category (&ch->y, label);
+    }
+
+  /* One curve per 10 %: the times each port reaches it, surface down; a port that never does
+   * breaks the curve. */
+  for (int pct = 10; pct <= 90; pct += 10)
+    {
+      double last_t = 0, last_d = 0;
+      guint reached = 0;
+      for (guint j = 0; j < col.n_depths; j++)
+        {
+          double t;
+          reached += iso_time (&col, j, pct / 100.0, &t);
+        }
+      if (reached < 2)
+        continue;
+      s = bw_chart_add_series (ch, curves == 0 ? _("Iso-removal curves (% removed)") : NULL,
+                               BW_SERIES_LINE, C_COLD, BW_MARKER_NONE, BW_DASH_SOLID, TRUE);
+      for (guint j = 0; j < col.n_depths; j++)
+        {
+          double t;
+          if (iso_time (&col, j, pct / 100.0, &t))
+            {
+              bw_chart_series_add (s, to_display (ut, t), ISO_Y (col.depth_m[j]));
+              last_t = t;
+              last_d = col.depth_m[j];
+            }
+          else
+            bw_chart_series_add (s, NAN, NAN);
+        }
+      {
+        g_autofree char *label = g_strdup_printf ("%d %%", pct);
+        bw_chart_add_note (ch, to_display (ut, last_t), ISO_Y (last_d), label)->ring = FALSE;
+      }
+      curves++;
+    }
+
+  s = bw_chart_add_series (ch, _("Column readings"), BW_SERIES_LINE, BW_CHART_MUTED,
+                           BW_MARKER_CROSS, BW_DASH_SOLID, FALSE);
+  for (guint j = 0; j < col.n_depths; j++)
+    for (guint k = 0; k < col.n_times; k++)
+      bw_chart_series_add (s, to_display (ut, col.time_s[k]), ISO_Y (col.depth_m[j]));
+
+  /* The overflow-rate line: a particle settling at v0 reaches depth v0 t (m, with v0 in m/s and
+   * t in s), down to the axis' bottom or its right end. */
+  t_end = MIN (bw_unit_to_si (ut, t_max), bw_unit_to_si (ud, d_bottom) / v0);
+  {
+    g_autofree char *v = fmt (v0, BW_KIND_SURFACE_LOADING, system);
+    g_autofree char *label = g_strdup_printf (_("Overflow rate %s (depth = v0 t)"), v);
+    s = bw_chart_add_series (ch, label, BW_SERIES_LINE, C_WARM, BW_MARKER_NONE, BW_DASH_DASHED, TRUE);
+    bw_chart_series_add (s, 0, ISO_Y (0.0));
+    bw_chart_series_add (s, to_display (ut, t_end), ISO_Y (v0 * t_end));
+  }
+  {
+    g_autofree char *h = fmt (res.depth_m, BW_KIND_LENGTH, system);
+    g_autofree char *t = fmt (res.detention_s, BW_KIND_TIME, system);
+    g_autofree char *label = g_strdup_printf (_("Design point: %s at %s, Type II removal %.0f %%"),
+                                              h, t, 100.0 * res.removal_fraction);
+    s = bw_chart_add_series (ch, label, BW_SERIES_LINE, C_WARM, BW_MARKER_DIAMOND, BW_DASH_SOLID,
+                             FALSE);
+    bw_chart_series_add (s, to_display (ut, res.detention_s), ISO_Y (res.depth_m));
+  }
+  {
+    BwChartRule *rule = bw_chart_add_rule (ch, FALSE, ISO_Y (0.0), _("water surface"), BW_CHART_MUTED,
+                                           BW_DASH_DOTTED);
+    rule->label_start = TRUE;
+  }
+#undef ISO_Y
+  ch->footnote = g_strdup (_("Removal = depth average of the port profile at the design time "
+                             "(iso-removal method); no scale-up applied. Preliminary: verify with "
+                             "a licensed engineer."));
   return g_steal_pointer (&ch);
 }
 
@@ -611,21 +795,22 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
                    BW_KIND_POWER);
 
   ch = bw_chart_new (BW_CHART_XY, NULL);
-  ch->title = g_strdup_printf ("%s: impeller power and G against speed", e->label);
+  ch->title = g_strdup_printf (_("%s: impeller power and G against speed"), e->label);
   {
     g_autofree char *d = fmt (imp.diameter_m, BW_KIND_LENGTH, system);
-    static const char *const kinds[] = { "Rushton turbine", "45° pitched-blade impeller",
-                                         "hydrofoil impeller" };
-    ch->subtitle = g_strdup_printf ("%s, %s diameter, %s; power number %s",
-                                    choice_custom (u) ? "custom impeller" : kinds[imp.kind], d,
-                                    baffled ? "baffled tank" : "unbaffled tank",
-                                    imp.power_number > 0 ? "as given" : "from the library");
+    static const char *const kinds[] = { N_("Rushton turbine"), N_("45° pitched-blade impeller"),
+                                         N_("hydrofoil impeller") };
+    /* TRANSLATORS: "<impeller>, <D> diameter, <baffled tank>; power number <as given>" */
+    ch->subtitle = g_strdup_printf (_("%s, %s diameter, %s; power number %s"),
+                                    choice_custom (u) ? _("custom impeller") : _(kinds[imp.kind]), d,
+                                    baffled ? _("baffled tank") : _("unbaffled tank"),
+                                    imp.power_number > 0 ? _("as given") : _("from the library"));
   }
-  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, "Impeller speed", un->symbol);
+  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, _("Impeller speed"), un->symbol);
   ch->x.include_zero = TRUE;
-  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, "Power to the water", up->symbol);
+  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, _("Power to the water"), up->symbol);
   ch->y.include_zero = TRUE;
-  bw_chart_axis_set (&ch->y2, BW_AXIS_LINEAR, "Velocity gradient G", ug->symbol);
+  bw_chart_axis_set (&ch->y2, BW_AXIS_LINEAR, _("Velocity gradient G"), ug->symbol);
   ch->y2.include_zero = TRUE;
   ch->has_y2 = TRUE;
 
@@ -633,8 +818,8 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
     {
       const double T = p->basis.temperature_K[temps[t]];
       g_autofree char *tl = fmt_temp (T, system);
-      g_autofree char *lp = g_strdup_printf ("Power at %s", tl);
-      g_autofree char *lg = g_strdup_printf ("G at %s (right axis)", tl);
+      g_autofree char *lp = g_strdup_printf (_("Power at %s"), tl);
+      g_autofree char *lg = g_strdup_printf (_("G at %s (right axis)"), tl);
       BwWater w;
       BwChartSeries *sp = NULL, *sg;
       if (!bw_water_properties (T, &w, error))
@@ -665,11 +850,11 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
     }
   if (low_re_to > 0)
     bw_chart_add_band (ch, TRUE, to_display (un, 0.25 * n_design), low_re_to,
-                       "Re < 10⁴: power number not constant", C_FILL_B);
+                       _("Re < 10⁴: power number not constant"), C_FILL_B);
 
   /* The design point from the results. */
   {
-    BwChartSeries *dp = bw_chart_add_series (ch, "Design point (engine results)", BW_SERIES_LINE,
+    BwChartSeries *dp = bw_chart_add_series (ch, _("Design point (engine results)"), BW_SERIES_LINE,
                                              BW_CHART_INK, BW_MARKER_DIAMOND, BW_DASH_SOLID,
                                              FALSE);
     BwChartSeries *dg = bw_chart_add_series (ch, NULL, BW_SERIES_LINE, BW_CHART_INK,
@@ -677,7 +862,7 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
     double gc, gw;
     g_autofree char *pw = fmt (p_design, BW_KIND_POWER, system);
     g_autofree char *nd = fmt (n_design, BW_KIND_ROTATIONAL_SPEED, system);
-    g_autofree char *label = g_strdup_printf ("%s at %s", pw, nd);
+    g_autofree char *label = g_strdup_printf (_("%s at %s"), pw, nd);
     dg->y2 = TRUE;
     bw_chart_series_add (dp, to_display (un, n_design), to_display (up, p_design));
     bw_chart_add_note (ch, to_display (un, n_design), to_display (up, p_design), label);
@@ -690,8 +875,8 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
                        BW_DASH_DOTTED);
   }
   add_limit_rules (ch, checks, ei, BW_Q_G, ug, TRUE, system);
-  ch->footnote = g_strdup ("P = Np ρ N³ D⁵; G = √(P / (μ V)). "
-                           "Preliminary: verify with a licensed engineer.");
+  ch->footnote = g_strdup (_("P = Np ρ N³ D⁵; G = √(P / (μ V)). "
+                             "Preliminary: verify with a licensed engineer."));
   return g_steal_pointer (&ch);
 }
 
@@ -749,11 +934,11 @@ bw_chart_check_matrix (const BwProject *p, const BwResults *r, GArray *checks,
     for (guint i = 0; train_id && i < p->trains->len; i++)
       if (g_strcmp0 (((BwTrain *) g_ptr_array_index (p->trains, i))->id, train_id) == 0)
         t = g_ptr_array_index (p->trains, i);
-    ch->title = g_strdup_printf ("Criteria checks by load case%s%s", t ? ": " : "",
+    ch->title = g_strdup_printf (_("Criteria checks by load case%s%s"), t ? ": " : "",
                                  t ? t->name : "");
   }
-  ch->subtitle = g_strdup_printf ("%u checks in %u load cases; each cell grades the governing "
-                                  "value of that case", rows->len, r->n_cases);
+  ch->subtitle = g_strdup_printf (_("%u checks in %u load cases; each cell grades the governing "
+                                    "value of that case"), rows->len, r->n_cases);
   bw_chart_matrix_init (ch, rows->len, r->n_cases);
   ch->matrix.row_groups = g_ptr_array_new_with_free_func (g_free);
   for (guint c = 0; c < r->n_cases; c++)
@@ -765,16 +950,18 @@ bw_chart_check_matrix (const BwProject *p, const BwResults *r, GArray *checks,
   for (guint c = 0; c < r->n_cases; c++)
     {
       const BwLoadCase *lc = &r->cases[c];
-      static const char *const flow_alts[] = { "minimum|min", "average day|avg day|avg",
-                                               "maximum day|max day|max", "peak hour|peak",
-                                               "future|fut" };
+      /* TRANSLATORS: column labels, longest first, separated by '|': the chart takes the
+       * longest that fits. */
+      static const char *const flow_alts[] = { N_("minimum|min"), N_("average day|avg day|avg"),
+                                               N_("maximum day|max day|max"), N_("peak hour|peak"),
+                                               N_("future|fut") };
       g_autofree char *tl = fmt_temp (p->basis.temperature_K[lc->temp], BW_UNIT_SYSTEM_SI);
-      g_ptr_array_add (lv_flow, g_strdup (flow_alts[lc->flow]));
+      g_ptr_array_add (lv_flow, g_strdup (_(flow_alts[lc->flow])));
       g_ptr_array_add (lv_temp, g_strdup_printf ("%s|%s", tl,
-                                                 lc->temp == BW_TEMP_COLDEST ? "cold" : "warm"));
+                                                 lc->temp == BW_TEMP_COLDEST ? _("cold") : _("warm")));
       if (lv_service)
-        g_ptr_array_add (lv_service, g_strdup (lc->service == BW_SERVICE_FIRM ? "firm|f"
-                                                                              : "all|a"));
+        g_ptr_array_add (lv_service, g_strdup (lc->service == BW_SERVICE_FIRM ? _("firm|f")
+                                                                              : _("all|a")));
     }
   g_ptr_array_add (ch->matrix.col_levels, lv_flow);
   g_ptr_array_add (ch->matrix.col_levels, lv_temp);
@@ -801,7 +988,7 @@ bw_chart_check_matrix (const BwProject *p, const BwResults *r, GArray *checks,
           bw_chart_matrix_set (ch, i, c, st);
         }
     }
-  ch->footnote = g_strdup ("Preliminary design aid: verify with a licensed professional "
-                           "engineer; local codes govern.");
+  ch->footnote = g_strdup (_("Preliminary design aid: verify with a licensed professional "
+                             "engineer; local codes govern."));
   return g_steal_pointer (&ch);
 }

@@ -49,4 +49,18 @@ BwChart *bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray
 BwChart *bw_chart_check_matrix (const BwProject *p, const BwResults *r, GArray *checks,
                                 const char *train_id, GError **error);
 
+/* (f) The iso-removal diagram of settling basin BASIN_ID (a rectangular basin or circular
+ * clarifier) from the settling-column test that applies to it (bw_project_column_test_for):
+ * column time across, depth down (a categorical y axis: category i is the depth in its label,
+ * the water surface at the top), one curve per removal percentage (10 % steps) through the times
+ * at which each port reaches it (linear in time between readings, from none removed at t = 0),
+ * the port readings as marks, the basin's overflow-rate line depth = v0 t and its design point
+ * (H, H / v0) with the Type II removal bw_type2_removal_at_overflow gives at the engine's
+ * overflow rate of the design case (bw_charts_design_case, coldest). H is the basin's side water
+ * depth, or the column's deepest port when the basin is deeper. Fails, naming the unit, when no
+ * column test applies to it. The series, in order: the iso curves (one per percentage, the first
+ * labelled), the readings, the overflow-rate line, the design point. */
+BwChart *bw_chart_iso_removal (const BwProject *p, const BwResults *r, const char *basin_id,
+                               BwUnitSystem system, GError **error);
+
 G_END_DECLS

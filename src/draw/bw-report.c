@@ -96,6 +96,8 @@ typedef struct
   GArray *toc;         /* TocEntry, this pass */
   GArray *prev_toc;    /* TocEntry, the previous pass (or NULL) */
   int figure;          /* figure counter */
+  GPtrArray *pages;    /* the preview: one recording surface per page (NULL when writing a PDF) */
+  cairo_font_options_t *font_options; /* the PDF surface's, for laying out the preview alike */
 } Doc;
 
 enum
@@ -119,6 +121,10 @@ make_layout (Doc *d, const char *text, double size, guint flags, double width)
 {
   PangoLayout *layout = pango_cairo_create_layout (d->cr);
   PangoFontDescription *fd = pango_font_description_new ();
+
+  /* The preview measures text with the PDF's font options, so its lines break where the file's do. */
+  if (d->font_options)
+    pango_cairo_context_set_font_options (pango_layout_get_context (layout), d->font_options);
 
   pango_font_description_set_family (fd, (flags & T_MONO) ? "DejaVu Sans Mono" : d->style->font_family);
   pango_font_description_set_absolute_size (fd, size * PANGO_SCALE);
@@ -200,7 +206,17 @@ doc_page (Doc *d, gboolean cover)
   g_autofree char *num = NULL;
   const double ink_y = d->ph - 34;
 
-  if (d->page > 0)
+  if (d->pages != NULL)
+    {
+      /* The preview: each page is its own recording surface, the page size in points. */
+      const cairo_rectangle_t extents = { 0, 0, d->pw, d->ph };
+      cairo_surface_t *s = cairo_recording_surface_create (CAIRO_CONTENT_COLOR_ALPHA, &extents);
+      cairo_destroy (d->cr);
+      d->cr = cairo_create (s);
+      d->surface = s;
+      g_ptr_array_add (d->pages, s);
+    }
+  else if (d->page > 0)
     cairo_show_page (d->cr);
   d->page++;
   if (d->total > 0)
@@ -245,7 +261,11 @@ toc_add (Doc *d, const char *title, int level)
   g_array_append_val (d->toc, e);
   if (d->final && level == 1)
     {
-      g_autofree char *link = g_strdup_printf ("page=%d pos=[%g %g]", d->page, d->x0, d->y);
+      /* cairo reads the link's numbers with a decimal point whatever the locale. */
+      char xs[G_ASCII_DTOSTR_BUF_SIZE], ys[G_ASCII_DTOSTR_BUF_SIZE];
+      g_autofree char *link = g_strdup_printf ("page=%d pos=[%s %s]", d->page,
+                                               g_ascii_formatd (xs, sizeof xs, "%g", d->x0),
+                                               g_ascii_formatd (ys, sizeof ys, "%g", d->y));
       cairo_pdf_surface_add_outline (d->surface, CAIRO_PDF_OUTLINE_ROOT, title, link, 0);
     }
 }
@@ -1035,6 +1055,10 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
                    g_strdup_printf ("Settling velocity against particle size, with the overflow rates of %s.", u->id));
         ADD_CHART (bw_chart_removal_curves (rp->p, rp->r, u->id, rp->units, &error),
                    g_strdup_printf ("Predicted removal against overflow rate for %s.", u->id));
+        if (bw_project_column_test_for (rp->p, u->id) != NULL)
+          ADD_CHART (bw_chart_iso_removal (rp->p, rp->r, u->id, rp->units, &error),
+                     g_strdup_printf ("Iso-removal curves of the settling-column test for %s, with "
+                                      "its design point and Type II removal.", u->id));
         break;
       default:
         break;
@@ -1206,6 +1230,8 @@ doc_clear (Doc *d)
   g_free (d->section);
   if (d->toc)
     g_array_unref (d->toc);
+  if (d->font_options)
+    cairo_font_options_destroy (d->font_options);
 }
 
 static gboolean
@@ -1219,21 +1245,16 @@ toc_same (GArray *a, GArray *b)
   return TRUE;
 }
 
-/* Lays the document out until its page numbers settle, then writes it to PATH atomically. */
-static gboolean
-write_document (BwReportPaper paper, const char *path, const char *title, const char *author,
-                const char *running, const char *footer, BodyFunc body, gconstpointer data, GError **error)
+/* Lays the document out on a PDF surface that writes nowhere until its page numbers settle;
+ * returns the last pass's contents (*PREV, owned) and page count (*TOTAL) for the kept pass. */
+static void
+settle_layout (double pw, double ph, const char *running, const char *footer, BodyFunc body,
+               gconstpointer data, GArray **prev_out, int *total_out)
 {
-  double pw, ph;
   GArray *prev = NULL;
   int total = 0;
-  g_autofree char *tmp = NULL;
   cairo_surface_t *surface;
-  cairo_status_t st;
   Doc d;
-  int fd;
-
-  bw_report_paper_size (paper, &pw, &ph);
 
   for (int pass = 0; pass < 5; pass++)
     {
@@ -1253,6 +1274,26 @@ write_document (BwReportPaper paper, const char *path, const char *title, const 
       if (stable)
         break;
     }
+  *prev_out = prev;
+  *total_out = total;
+}
+
+/* Lays the document out until its page numbers settle, then writes it to PATH atomically. */
+static gboolean
+write_document (BwReportPaper paper, const char *path, const char *title, const char *author,
+                const char *running, const char *footer, BodyFunc body, gconstpointer data, GError **error)
+{
+  double pw, ph;
+  GArray *prev = NULL;
+  int total = 0;
+  g_autofree char *tmp = NULL;
+  cairo_surface_t *surface;
+  cairo_status_t st;
+  Doc d;
+  int fd;
+
+  bw_report_paper_size (paper, &pw, &ph);
+  settle_layout (pw, ph, running, footer, body, data, &prev, &total);
 
   /* The kept pass, into a temporary file beside PATH. */
   tmp = g_strdup_printf ("%s.XXXXXX", path);
@@ -1296,6 +1337,49 @@ write_document (BwReportPaper paper, const char *path, const char *title, const 
       return FALSE;
     }
   return TRUE;
+}
+
+/* The same layout as write_document, its kept pass recorded page by page (the preview). */
+static GPtrArray *
+render_document (BwReportPaper paper, const char *running, const char *footer, BodyFunc body,
+                 gconstpointer data, GError **error)
+{
+  double pw, ph;
+  GArray *prev = NULL;
+  int total = 0;
+  cairo_surface_t *scratch, *pdf;
+  GPtrArray *pages = g_ptr_array_new_with_free_func ((GDestroyNotify) cairo_surface_destroy);
+  Doc d;
+
+  bw_report_paper_size (paper, &pw, &ph);
+  settle_layout (pw, ph, running, footer, body, data, &prev, &total);
+
+  /* Text is measured with the font options of a PDF surface, as in the file. */
+  scratch = cairo_recording_surface_create (CAIRO_CONTENT_COLOR_ALPHA, NULL);
+  doc_init (&d, scratch, pw, ph, running, footer);
+  pdf = cairo_pdf_surface_create_for_stream (discard_write, NULL, pw, ph);
+  d.font_options = cairo_font_options_create ();
+  cairo_surface_get_font_options (pdf, d.font_options);
+  cairo_surface_destroy (pdf);
+  d.pages = pages;
+  d.prev_toc = prev;
+  d.total = total;
+  body (&d, data);
+  doc_clear (&d);
+  cairo_surface_destroy (scratch);
+  g_array_unref (prev);
+  for (guint i = 0; i < pages->len; i++)
+    {
+      const cairo_status_t st = cairo_surface_status (g_ptr_array_index (pages, i));
+      if (st != CAIRO_STATUS_SUCCESS)
+        {
+          g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, "page %u: cannot be drawn: %s", i + 1,
+                       cairo_status_to_string (st));
+          g_ptr_array_unref (pages);
+          return NULL;
+        }
+    }
+  return pages;
 }
 
 static void
@@ -1351,6 +1435,42 @@ bw_report_write_pdf (const BwProject *p, const BwResults *r, GArray *checks, con
                          report_body, &rp, error);
 }
 
+GPtrArray *
+bw_report_render_pages (const BwProject *p, const BwResults *r, GArray *checks,
+                        const BwCriteriaSet *set, BwReportPaper paper, BwUnitSystem units,
+                        GError **error)
+{
+  Report rp = { p, r, checks, set, units };
+  g_autofree char *running = NULL;
+  g_autofree char *footer = NULL;
+
+  g_return_val_if_fail (p != NULL && r != NULL && checks != NULL && set != NULL, NULL);
+  g_return_val_if_fail (error == NULL || *error == NULL, NULL);
+  if (paper >= BW_N_REPORT_PAPERS)
+    {
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "paper: unknown paper size");
+      return NULL;
+    }
+  /* The same header and footer text as bw_report_write_pdf: the pages cannot disagree. */
+  running = running_text (p);
+  footer = g_strdup_printf ("Basinwright %s · criteria %s", PACKAGE_VERSION, set->id);
+  return render_document (paper, running, footer, report_body, &rp, error);
+}
+
+void
+bw_report_paint_page (cairo_surface_t *page, cairo_t *cr, double scale)
+{
+  g_return_if_fail (page != NULL && cr != NULL);
+  g_return_if_fail (isfinite (scale) && scale > 0);
+  cairo_save (cr);
+  cairo_scale (cr, scale, scale);
+  cairo_set_source_rgb (cr, 1, 1, 1); /* the paper */
+  cairo_paint (cr);
+  cairo_set_source_surface (cr, page, 0, 0);
+  cairo_paint (cr);
+  cairo_restore (cr);
+}
+
 /* ------------------------------------------------------------------------------------------ */
 /* The findings report */
 
@@ -1394,7 +1514,7 @@ stated_table (Doc *d, const Review *rv, BwFindingKind kind, gboolean with_comput
   static const double w[] = { 0.05, 0.14, 0.14, 0.16, 0.11, 0.11, 0.11, 0.18 };
   static const guint f[] = { T_RIGHT, T_MONO, 0, T_MUTED, T_RIGHT, T_RIGHT, T_RIGHT | T_BOLD, T_ITALIC };
   Table *t = table_new (8, w, f, 7.5, "Line", "Element", "Quantity", "Case", "Stated", "Computed",
-                        "Difference", "Comment in the stated file");
+                        "Difference", "Reviewer's comment");
 
   for (guint i = 0; i < rv->findings->len; i++)
     {
@@ -1440,7 +1560,8 @@ review_body (Doc *d, gconstpointer data)
   doc_section (d, "Discrepancies");
   intro = g_strdup_printf ("Values the submittal states that differ from Basinwright's own by more than "
                            "the reviewer's tolerance of %g %% (relative difference = (stated − computed) / "
-                           "|computed|). Line numbers refer to the stated-values file.",
+                           "|computed|). Line numbers refer to the stated-values file, or to the project file "
+                           "for values kept in its review record.",
                            rv->tolerance * 100);
   doc_para (d, intro, 9.5, 0);
   stated_table (d, rv, BW_FINDING_DISCREPANCY, TRUE);

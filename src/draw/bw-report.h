@@ -3,6 +3,7 @@
  * (cairo PDF surface, Pango text). They show what the engine returns and recompute nothing. */
 #pragma once
 
+#include <cairo.h>
 #include <glib.h>
 
 #include "engine/bw-criteria.h"
@@ -33,6 +34,17 @@ void bw_report_paper_size (BwReportPaper paper, double *width_pt, double *height
 gboolean bw_report_write_pdf (const BwProject *p, const BwResults *r, GArray *checks,
                               const BwCriteriaSet *set, BwReportPaper paper, BwUnitSystem units,
                               const char *path, GError **error);
+
+/* The pages of the same design report as bw_report_write_pdf, laid out by the same code with the
+ * same text measurement, as cairo recording surfaces (one per page, the page size in points,
+ * origin at the top left; cairo_surface_destroy frees each). For a preview: the page count and
+ * every page agree with the PDF. NULL with BW_DRAW_ERROR_CAIRO (or _SIZE for a bad paper). */
+GPtrArray *bw_report_render_pages (const BwProject *p, const BwResults *r, GArray *checks,
+                                   const BwCriteriaSet *set, BwReportPaper paper, BwUnitSystem units,
+                                   GError **error);
+
+/* Paints PAGE (from bw_report_render_pages) on white paper onto CR, SCALE device units per point. */
+void bw_report_paint_page (cairo_surface_t *page, cairo_t *cr, double scale);
 
 /* Writes the reviewer's findings report: FINDINGS is the GArray of BwFinding that bw_review
  * returned for R and CHECKS at the relative TOLERANCE. Lists every discrepancy (stated, computed,

@@ -10,6 +10,7 @@
 
 #include "draw/bw-sketch.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include "engine/bw-evaluate.h"
 #include <pango/pangocairo.h>
@@ -898,9 +899,9 @@ hatch (Ctx *c, double x0, double y0, double x1, double y1, BwRgb col)
 static const char *
 inlet_label (const Unit *n)
 {
-  return n->inlet == 0   ? "perforated baffle wall"
-         : n->inlet == 1 ? "inlet baffle"
-                         : "no inlet baffle";
+  return n->inlet == 0   ? _("perforated baffle wall")
+         : n->inlet == 1 ? _("inlet baffle")
+                         : _("no inlet baffle");
 }
 
 static double
@@ -915,8 +916,8 @@ launder_text_short (const Ctx *c, const Unit *n)
 {
   g_autofree char *weir = fmt_len (c, n->weir);
   if (n->weir <= 0)
-    return g_strdup ("effluent weir");
-  return g_strdup_printf ("weirs %s in all (schematic)", weir);
+    return g_strdup (_("effluent weir"));
+  return g_strdup_printf (_("weirs %s in all (schematic)"), weir);
 }
 
 static char *launder_text (const Ctx *c, const Unit *n);
@@ -952,15 +953,17 @@ launder_text (const Ctx *c, const Unit *n)
   g_autofree char *weir = fmt_len (c, n->weir);
   g_autofree char *ll = fmt_len (c, n->launder_length);
   if (n->weir <= 0)
-    return g_strdup ("effluent weir across the outlet wall (length not given)");
+    return g_strdup (_("effluent weir across the outlet wall (length not given)"));
   if (n->n_launders == 0)
-    return g_strdup_printf ("effluent weir, %s", weir);
+    return g_strdup_printf (_("effluent weir, %s"), weir);
   if (n->launder_capped)
-    return g_strdup_printf ("weirs %s in all: more than the %d launders drawn hold (schematic)",
+    return g_strdup_printf (_("weirs %s in all: more than the %d launders drawn hold (schematic)"),
                             weir, n->n_launders);
-  return g_strdup_printf ("%d launder%s × %s, weirs both sides, + end weir: %s in all (layout "
-                          "schematic)",
-                          n->n_launders, n->n_launders > 1 ? "s" : "", ll, weir);
+  return g_strdup_printf (ngettext ("%d launder × %s, weirs both sides, + end weir: %s in all "
+                                    "(layout schematic)",
+                                    "%d launders × %s, weirs both sides, + end weir: %s in all "
+                                    "(layout schematic)", n->n_launders),
+                          n->n_launders, ll, weir);
 }
 
 static void
@@ -1069,7 +1072,7 @@ basin_section (Ctx *c, const Unit *n)
 
   /* zone names inside, where they fit */
   if (c->g.scale * H > 1.6 * fs)
-    text (c, px (c, 0.5 * L), py (c, 0.62 * H), "settling zone", fs, FALSE, 0.5, 0.5, st->ink);
+    text (c, px (c, 0.5 * L), py (c, 0.62 * H), _("settling zone"), fs, FALSE, 0.5, 0.5, st->ink);
 
   /* callouts above and below */
   /* the outlet's leader lands a fifth along the launder, clear of its dimension text */
@@ -1078,7 +1081,7 @@ basin_section (Ctx *c, const Unit *n)
                   py (c, H + 0.08), py (c, top) - 2.6 * fs);
   if (s > 0)
     callout (c, px (c, 0.8 * L), py (c, -s / 2), px (c, 0.78 * L), py (c, -s - t) + 2.9 * fs,
-             "sludge zone", 1.0, 0.0);
+             _("sludge zone"), 1.0, 0.0);
 
   /* dimensions */
   {
@@ -1158,7 +1161,7 @@ basin_plan (Ctx *c, const Unit *n)
       }
 
   if (c->g.scale * W > 3.2 * fs)
-    text (c, px (c, 0.42 * L), py (c, W / 2) - 0.2 * fs, "settling zone", fs, FALSE, 0.5, 1.0,
+    text (c, px (c, 0.42 * L), py (c, W / 2) - 0.2 * fs, _("settling zone"), fs, FALSE, 0.5, 1.0,
           st->ink);
 
   {
@@ -1187,24 +1190,24 @@ basin_plan (Ctx *c, const Unit *n)
 /* --- rapid-mix tank --- */
 
 static const char *const impeller_labels[] = {
-  "radial flat-blade disc turbine", "45° pitched-blade turbine", "hydrofoil impeller",
-  "impeller (custom)",
+  N_("radial flat-blade disc turbine"), N_("45° pitched-blade turbine"), N_("hydrofoil impeller"),
+  N_("impeller (custom)"),
 };
 
 static const char *const impeller_short[] = {
-  "disc turbine", "pitched blade", "hydrofoil", "impeller",
+  N_("disc turbine"), N_("pitched blade"), N_("hydrofoil"), N_("impeller"),
 };
 
 static const char *
 impeller_label (const Unit *n)
 {
-  return impeller_labels[CLAMP (n->impeller, 0, 3)];
+  return _(impeller_labels[CLAMP (n->impeller, 0, 3)]);
 }
 
 static const char *
 impeller_label_short (const Unit *n)
 {
-  return impeller_short[CLAMP (n->impeller, 0, 3)];
+  return _(impeller_short[CLAMP (n->impeller, 0, 3)]);
 }
 
 /* The impeller seen from the side, hub at world (0, C). */
@@ -1384,21 +1387,21 @@ rapid_mix_section (Ctx *c, const Unit *n)
 
   /* callouts, right */
   {
-    g_autofree char *bt = g_strdup_printf ("wall baffles, %d (one-twelfth of the width)",
+    g_autofree char *bt = g_strdup_printf (_("wall baffles, %d (one-twelfth of the width)"),
                                            TANK_BAFFLES);
     const double tx = xr + 7.0 * fs;
     callout (c, px (c, 0.13 * n->tank), py (c, top + beam + 0.6 * motor), tx,
-             py (c, top + beam + 0.6 * motor), "drive", 0.0, 0.5);
+             py (c, top + beam + 0.6 * motor), _("drive"), 0.0, 0.5);
     if (n->baffled)
       callout_fit (c, px (c, R - bw / 2), py (c, 0.75 * H), tx, py (c, 0.72 * H) - 1.0 * fs, bt,
-                   "wall baffles", 0.0, 0.5);
+                   _("wall baffles"), 0.0, 0.5);
     callout_fit (c, px (c, 0.45 * n->impeller_d), py (c, n->clearance), tx,
                  py (c, n->clearance) + 1.4 * fs, impeller_label (n), impeller_label_short (n), 0.0,
                  0.5);
     callout (c, px (c, -0.5 * R), py (c, H), xl - 0.5 * fs, py (c, top + beam) - 1.0 * fs,
-             "liquid level", 1.0, 0.5);
+             _("liquid level"), 1.0, 0.5);
     if (!n->baffled)
-      callout (c, px (c, R), py (c, 0.75 * H), tx, py (c, 0.72 * H) - 1.0 * fs, "no wall baffles",
+      callout (c, px (c, R), py (c, 0.75 * H), tx, py (c, 0.72 * H) - 1.0 * fs, _("no wall baffles"),
                0.0, 0.5);
   }
 
@@ -1500,14 +1503,14 @@ rapid_mix_plan (Ctx *c, const Unit *n)
 
   {
     const double tx = px (c, R + t) + 6.5 * fs;
-    g_autofree char *bt = g_strdup_printf ("wall baffles, %d", TANK_BAFFLES);
+    g_autofree char *bt = g_strdup_printf (_("wall baffles, %d"), TANK_BAFFLES);
     if (n->baffled)
-      callout_fit (c, px (c, R - bw / 2), py (c, 0), tx, py (c, 0) + 1.5 * fs, bt, "baffles", 0.0,
+      callout_fit (c, px (c, R - bw / 2), py (c, 0), tx, py (c, 0) + 1.5 * fs, bt, _("baffles"), 0.0,
                    0.5);
     callout_fit (c, px (c, 0), py (c, 0.4 * n->impeller_d), tx, py (c, 0.85 * R),
                  impeller_label (n), impeller_label_short (n), 0.0, 0.5);
     callout_fit (c, px (c, R + t * 0.3), py (c, 0.05 * n->tank), tx, py (c, 0.3 * R),
-                 "drive beam above", "drive beam", 0.0, 0.5);
+                 _("drive beam above"), _("drive beam"), 0.0, 0.5);
   }
 
   {
@@ -1531,16 +1534,16 @@ stage_kind (const BwProcessUnit *st, gboolean shrt)
   switch (st->type)
     {
     case BW_STAGE_PADDLE:
-      return shrt ? "paddles"
-                  : param (st, "shaft") == 1 ? "paddles, vertical shaft"
-                                             : "paddles, horizontal shaft";
+      return shrt ? _("paddles")
+                  : param (st, "shaft") == 1 ? _("paddles, vertical shaft")
+                                             : _("paddles, horizontal shaft");
     case BW_STAGE_TURBINE:
-      return shrt ? "turbine" : impeller_labels[CLAMP ((int) param (st, "impeller"), 0, 3)];
+      return shrt ? _("turbine") : _(impeller_labels[CLAMP ((int) param (st, "impeller"), 0, 3)]);
     case BW_STAGE_BAFFLED:
-      return shrt ? "baffled"
-                  : param (st, "style") == 1 ? "baffles over and under" : "baffles around the end";
+      return shrt ? _("baffled")
+                  : param (st, "style") == 1 ? _("baffles over and under") : _("baffles around the end");
     default:
-      return "stage";
+      return _("stage");
     }
 }
 
@@ -1909,7 +1912,7 @@ stage_detail (const Ctx *c, const BwProcessUnit *st)
     case BW_STAGE_TURBINE:
       {
         g_autofree char *d = fmt_len (c, param (st, "impeller-diameter"));
-        return g_strdup_printf ("impeller Ø %s", d);
+        return g_strdup_printf (_("impeller Ø %s"), d);
       }
     case BW_STAGE_BAFFLED:
       {
@@ -2028,7 +2031,7 @@ floc_view (Ctx *c, const Unit *n, BwSketchView view)
       const BwProcessUnit *st = floc_stage (n, i);
       const double len = stage_length (st), room = c->g.scale * len - 0.4 * fs;
       const guint number = n->first + i + 1;
-      g_autofree char *lng = g_strdup_printf ("stage %u · %s", number, stage_kind (st, FALSE));
+      g_autofree char *lng = g_strdup_printf (_("stage %u · %s"), number, stage_kind (st, FALSE));
       g_autofree char *mid = g_strdup_printf ("%u · %s", number, stage_kind (st, TRUE));
       g_autofree char *shrt = g_strdup_printf ("%u", number);
       g_autofree char *detail = stage_detail (c, st);
@@ -2078,7 +2081,7 @@ floc_section (Ctx *c, const Unit *n)
 static const char *
 launder_kind (const Unit *n)
 {
-  return n->inboard ? "inboard launder, weirs both sides" : "peripheral launder";
+  return n->inboard ? _("inboard launder, weirs both sides") : _("peripheral launder");
 }
 
 static void
@@ -2137,18 +2140,18 @@ clarifier_plan (Ctx *c, const Unit *n)
     const double tx = px (c, R + t) + 2.0 * fs;
     g_autofree char *fd = fmt_len (c, n->feed_well);
     g_autofree char *fl = g_strdup_printf ("feed well Ø %s%s", fd,
-                                           n->feed_well_given ? "" : " (drawn; not given)");
+                                           n->feed_well_given ? "" : _(" (drawn; not given)"));
     g_autofree char *lr = fmt_len (c, n->launder_r);
-    g_autofree char *ll = n->inboard ? g_strdup_printf ("%s at r %s", launder_kind (n), lr)
+    g_autofree char *ll = n->inboard ? g_strdup_printf (_("%s at r %s"), launder_kind (n), lr)
                                      : g_strdup (launder_kind (n));
     const double a1 = G_PI / 4, a2 = 0.09 * G_PI;
     const double lm = (l_in + l_out) / 2;
     callout_fit (c, cx + s * fw * cos (a1 + 0.3), cy - s * fw * sin (a1 + 0.3), tx,
-                 py (c, 0.62 * R), fl, "feed well", 0.0, 0.5);
+                 py (c, 0.62 * R), fl, _("feed well"), 0.0, 0.5);
     callout_fit (c, cx + s * lm * cos (a2), cy - s * lm * sin (a2), tx, py (c, 0.25 * R), ll,
-                 "launder", 0.0, 0.5);
+                 _("launder"), 0.0, 0.5);
     callout_fit (c, cx + s * 0.55 * (fw + l_in) * cos (-a2), cy - s * 0.55 * (fw + l_in) * sin (-a2),
-                 tx, py (c, -0.25 * R), "flow outward to the weirs", "flow", 0.0, 0.5);
+                 tx, py (c, -0.25 * R), _("flow outward to the weirs"), "flow", 0.0, 0.5);
   }
   {
     g_autofree char *dt = fmt_len (c, n->diameter);
@@ -2246,15 +2249,15 @@ clarifier_section (Ctx *c, const Unit *n)
   {
     const double tx = px (c, R + t) + 4.6 * fs;
     g_autofree char *sd = fmt_len (c, sl);
-    g_autofree char *sl_long = g_strdup_printf ("sludge zone, %s at the centre", sd);
+    g_autofree char *sl_long = g_strdup_printf (_("sludge zone, %s at the centre"), sd);
     g_autofree char *fd = fmt_len (c, n->feed_well);
-    callout_fit (c, px (c, lc), py (c, H + 0.08), tx, py (c, top), launder_kind (n), "launder",
+    callout_fit (c, px (c, lc), py (c, H + 0.08), tx, py (c, top), launder_kind (n), _("launder"),
                  0.0, 0.5);
     callout_fit (c, px (c, fw), py (c, 0.5 * (H + skirt)), tx, py (c, 0.8 * H) + 0.4 * fs,
-                 "feed well skirt", "feed well", 0.0, 0.5);
+                 _("feed well skirt"), _("feed well"), 0.0, 0.5);
     if (sl > 0)
       callout_fit (c, px (c, 0.5 * R), py (c, -0.25 * sl), tx, py (c, 0) + 1.0 * fs, sl_long,
-                   "sludge", 0.0, 0.5);
+                   _("sludge"), 0.0, 0.5);
     g_autofree char *fl = g_strdup_printf ("Ø %s", fd);
     dim_h (c, px (c, -fw), px (c, fw), py (c, H + 0.2), py (c, top) - 0.3 * fs, fl);
   }
@@ -2330,7 +2333,7 @@ break_line (Ctx *c, double x0, double y0, double x1, double y1)
   cairo_stroke (c->cr);
 }
 
-static const char *const settler_names[] = { "plates", "circular tubes", "square tubes" };
+static const char *const settler_names[] = { N_("plates"), N_("circular tubes"), N_("square tubes") };
 
 static void
 settler_section (Ctx *c, const Unit *n)
@@ -2443,23 +2446,56 @@ settler_section (Ctx *c, const Unit *n)
   {
     const double tx = px (c, x1) + 1.5 * fs;
     g_autofree char *wd = fmt_len (c, n->plate_width);
-    g_autofree char *lng = g_strdup_printf (n->shape == 0 ? "%u %s, %s wide; %u drawn"
-                                                          : "%u %s in rows %s wide; %u drawn",
-                                            n->count, settler_names[n->shape], wd, np);
-    g_autofree char *shrt = g_strdup_printf ("%u %s (%u drawn)", n->count, settler_names[n->shape],
+    g_autofree char *lng = g_strdup_printf (n->shape == 0 ? _("%u %s, %s wide; %u drawn")
+                                                          : _("%u %s in rows %s wide; %u drawn"),
+                                            n->count, _(settler_names[n->shape]), wd, np);
+    g_autofree char *shrt = g_strdup_printf (_("%u %s (%u drawn)"), n->count, _(settler_names[n->shape]),
                                              np);
     callout_fit (c, px (c, 0.55 * L * ca), py (c, 0.55 * L * sa), tx, py (c, L * sa), lng, shrt,
                  0.0, 0.5);
     callout_fit (c, px (c, 0.5 * xr + 0.15), py (c, ws - 0.1), tx, py (c, ws) - 0.6 * fs,
-                 "collection trough", "trough", 0.0, 0.5);
+                 _("collection trough"), _("trough"), 0.0, 0.5);
     callout_fit (c, px (c, (np - 1) * pitch * 0.5 + 0.6 * L * ca), py (c, 0.6 * L * sa), tx,
-                 py (c, 0.6 * L * sa), "flow up the channels", "flow up", 0.0, 0.5);
+                 py (c, 0.6 * L * sa), _("flow up the channels"), _("flow up"), 0.0, 0.5);
     callout_fit (c, px (c, (np - 1) * pitch * 0.5 + 0.2 * L * ca), py (c, 0.2 * L * sa), tx,
-                 py (c, 0.2 * L * sa) , "settled solids slide down", "solids down", 0.0, 0.5);
+                 py (c, 0.2 * L * sa) , _("settled solids slide down"), _("solids down"), 0.0, 0.5);
   }
 }
 
 /* --- train schematic: the engine's results, not to scale --- */
+
+/* The schematic's columns: a lead-in and lead-out for the flow arrows, NU blocks of width BW
+ * from X0 with GAP between them; all in page units, from the body text size. */
+static void
+schematic_columns (const BwSketchGeometry *g, guint nu, double *lead, double *gap, double *x0,
+                   double *bw)
+{
+  const double fs = g->text_size;
+
+  *lead = 2.6 * fs;
+  *gap = 2.8 * fs;
+  *x0 = g->world_x0 + *lead;
+  *bw = nu > 0 ? (g->world_x1 - *lead - *x0 - (nu - 1) * *gap) / nu : 0;
+}
+
+int
+bw_sketch_schematic_block_at (const BwSketchGeometry *g, guint n_units, double x, double y)
+{
+  double lead, gap, x0, bw;
+
+  g_return_val_if_fail (g != NULL, -1);
+  if (n_units == 0 || y < -g->world_y1 || y > -g->world_y0)
+    return -1;
+  schematic_columns (g, n_units, &lead, &gap, &x0, &bw);
+  for (guint i = 0; i < n_units; i++)
+    {
+      const double bx = x0 + i * (bw + gap);
+      if (x >= bx && x <= bx + bw)
+        return (int) i;
+    }
+  return -1;
+}
+
 
 /* The load case the schematic shows: maximum-day flow, coldest water, all units in service;
  * failing that the first maximum-day case; failing that the last case. */
@@ -2539,7 +2575,7 @@ block_lines (const Ctx *c, const BwResults *r, const BwProcessUnit *u, int k)
   GPtrArray *lines = g_ptr_array_new_with_free_func (g_free);
   const BwElementResult *e = element_of (r, u, NULL);
 
-  add_figure (c, lines, e, k, BW_Q_FLOW, "flow");
+  add_figure (c, lines, e, k, BW_Q_FLOW, _("flow"));
   switch (u->type)
     {
     case BW_PROCESS_RAPID_MIX:
@@ -2549,7 +2585,7 @@ block_lines (const Ctx *c, const BwResults *r, const BwProcessUnit *u, int k)
       break;
     case BW_PROCESS_FLOCCULATOR:
       add_figure (c, lines, e, k, BW_Q_DETENTION, "t");
-      add_figure (c, lines, e, k, BW_Q_G, "G (mean)");
+      add_figure (c, lines, e, k, BW_Q_G, _("G (mean)"));
       for (guint i = 0; u->stages && i < u->stages->len; i++)
         {
           g_autofree char *label = g_strdup_printf ("G%u", i + 1);
@@ -2559,12 +2595,12 @@ block_lines (const Ctx *c, const BwResults *r, const BwProcessUnit *u, int k)
       break;
     case BW_PROCESS_RECTANGULAR_BASIN:
     case BW_PROCESS_CIRCULAR_CLARIFIER:
-      add_figure (c, lines, e, k, BW_Q_OVERFLOW_RATE, "overflow");
+      add_figure (c, lines, e, k, BW_Q_OVERFLOW_RATE, _("overflow"));
       add_figure (c, lines, e, k, BW_Q_DETENTION, "t");
       break;
     case BW_PROCESS_PLATE_SETTLER:
-      add_figure (c, lines, e, k, BW_Q_PROJECTED_LOADING, "loading");
-      add_figure (c, lines, e, k, BW_Q_OVERFLOW_RATE, "overflow");
+      add_figure (c, lines, e, k, BW_Q_PROJECTED_LOADING, _("loading"));
+      add_figure (c, lines, e, k, BW_Q_OVERFLOW_RATE, _("overflow"));
       break;
     default:
       break;
@@ -2578,18 +2614,18 @@ schematic (Ctx *c, const Unit *n, const BwProcessUnit *named, const BwResults *r
   const BwTrain *tr = n->train;
   const guint nu = tr->units->len;
   const double fs = c->ty.body;
-  const double lead = 2.6 * fs, gap = 2.8 * fs;
-  const double x0 = c->g.world_x0 + lead, x1 = c->g.world_x1 - lead;
-  const double bw = (x1 - x0 - (nu - 1) * gap) / nu;
-  const double inner = MAX (bw - 1.2 * fs, 4.0);
+  double lead, gap, x0, bw;
+  double inner;
   const double ytop = -c->g.world_y1, ybot = -c->g.world_y0;
   const int k = schematic_case (r);
-  g_autofree char *case_label = k >= 0 ? bw_load_case_label (&r->cases[k]) : g_strdup ("none");
+  g_autofree char *case_label = k >= 0 ? bw_load_case_label (&r->cases[k]) : g_strdup (_("none"));
   const BwRgb none = { -1, -1, -1 };
   const BwStyle *st = c->st;
   guint highlight = G_MAXUINT;
   double bh = 0, by;
 
+  schematic_columns (&c->g, nu, &lead, &gap, &x0, &bw);
+  inner = MAX (bw - 1.2 * fs, 4.0);
   /* the unit the drawing was asked for (a stage's flocculator) stands out */
   for (guint i = 0; i < nu; i++)
     {
@@ -2639,7 +2675,7 @@ schematic (Ctx *c, const Unit *n, const BwProcessUnit *named, const BwResults *r
       if (u->n_parallel > 1)
         {
           g_autofree char *par = u->n_standby > 0
-                                     ? g_strdup_printf ("× %u (%u standby)", u->n_parallel,
+                                     ? g_strdup_printf (_("× %u (%u standby)"), u->n_parallel,
                                                         u->n_standby)
                                      : g_strdup_printf ("× %u", u->n_parallel);
           y += text_box (c, tx, y, inner, par, 0.85 * fs, FALSE, 1, st->ink_muted);
@@ -2693,14 +2729,14 @@ static const char *
 view_title (const Unit *n, BwSketchView view)
 {
   if (view == BW_SKETCH_SCHEMATIC)
-    return "schematic";
+    return _("schematic");
   if (n->type == BW_PROCESS_CIRCULAR_CLARIFIER)
-    return view == BW_SKETCH_PLAN ? "plan" : "section on a diameter";
+    return view == BW_SKETCH_PLAN ? _("plan") : _("section on a diameter");
   if (n->type == BW_PROCESS_PLATE_SETTLER)
-    return "section across the plates";
+    return _("section across the plates");
   if (n->type == BW_PROCESS_RECTANGULAR_BASIN || n->floc != NULL)
-    return view == BW_SKETCH_PLAN ? "plan" : "longitudinal section";
-  return view == BW_SKETCH_PLAN ? "plan" : "section on the shaft";
+    return view == BW_SKETCH_PLAN ? _("plan") : _("longitudinal section");
+  return view == BW_SKETCH_PLAN ? _("plan") : _("section on the shaft");
 }
 
 static void
@@ -2716,16 +2752,17 @@ sheet (Ctx *c, const BwProject *p, const BwProcessUnit *u, const Unit *n, BwSket
   Box b;
 
   if (u->n_parallel > 1 && u->n_standby > 0)
-    units = g_strdup_printf (", one of %u alike (%u standby)", u->n_parallel, u->n_standby);
+    units = g_strdup_printf (_(", one of %u alike (%u standby)"), u->n_parallel, u->n_standby);
   else if (u->n_parallel > 1)
-    units = g_strdup_printf (", one of %u alike", u->n_parallel);
+    units = g_strdup_printf (_(", one of %u alike"), u->n_parallel);
   if (view == BW_SKETCH_SCHEMATIC)
     {
       title = g_strdup_printf ("%s — %s", n->train->name && *n->train->name ? n->train->name
                                                                            : n->train->id,
                                view_title (n, view));
-      sub = g_strdup_printf ("train %s · %u unit%s · results at %s", n->train->id,
-                             n->train->units->len, n->train->units->len == 1 ? "" : "s",
+      sub = g_strdup_printf (ngettext ("train %s · %u unit · results at %s",
+                                       "train %s · %u units · results at %s", n->train->units->len),
+                             n->train->id, n->train->units->len,
                              c->case_label);
     }
   else
@@ -2742,7 +2779,7 @@ sheet (Ctx *c, const BwProject *p, const BwProcessUnit *u, const Unit *n, BwSket
         sub = g_strdup_printf ("%s · %s%s", u->id, bw_process_type_label (u->type),
                                units ? units : "");
     }
-  right = g_strdup_printf ("%s%s%s", p->name ? p->name : "", p->revision ? " · rev. " : "",
+  right = g_strdup_printf ("%s%s%s", p->name ? p->name : "", p->revision ? _(" · rev. ") : "",
                            p->revision ? p->revision : "");
 
   b = text (c, ty->pad, ty->pad, title, ty->title, TRUE, 0.0, 0.0, st->ink);
@@ -2763,30 +2800,30 @@ sheet (Ctx *c, const BwProject *p, const BwProcessUnit *u, const Unit *n, BwSket
     scale_bar (c);
 
   if (view == BW_SKETCH_SCHEMATIC)
-    drafting = g_strdup ("Not to scale; the figures are the engine's results for the case above.");
+    drafting = g_strdup (_("Not to scale; the figures are the engine's results for the case above."));
   else if (n->floc != NULL)
-    drafting = g_strdup ("To scale from the design inputs; walls, partitions, baffle ends, shaft "
-                         "and impeller elevations are drawn by convention.");
+    drafting = g_strdup (_("To scale from the design inputs; walls, partitions, baffle ends, shaft "
+                           "and impeller elevations are drawn by convention."));
   else if (n->type == BW_PROCESS_CIRCULAR_CLARIFIER)
     drafting = g_strdup (n->feed_well_given
-                             ? "To scale from the design inputs; walls, floor slope, feed well "
-                               "depth and launder size are drawn by convention."
-                             : "To scale from the design inputs; walls, floor slope, feed well "
-                               "size and launder size are drawn by convention.");
+                             ? _("To scale from the design inputs; walls, floor slope, feed well "
+                                 "depth and launder size are drawn by convention.")
+                             : _("To scale from the design inputs; walls, floor slope, feed well "
+                                 "size and launder size are drawn by convention."));
   else if (n->type == BW_PROCESS_PLATE_SETTLER)
-    drafting = g_strdup ("To scale from the design inputs, a representative run of channels; the "
-                         "tank around them is drawn by convention.");
+    drafting = g_strdup (_("To scale from the design inputs, a representative run of channels; the "
+                           "tank around them is drawn by convention."));
   else
     drafting = g_strdup (n->type == BW_PROCESS_RECTANGULAR_BASIN
-                             ? "To scale from the design inputs; walls, freeboard and launder "
-                               "layout are drawn by convention."
-                             : "To scale from the design inputs; walls, freeboard, drive and "
-                               "impeller elevation are drawn by convention.");
+                             ? _("To scale from the design inputs; walls, freeboard and launder "
+                                 "layout are drawn by convention.")
+                             : _("To scale from the design inputs; walls, freeboard, drive and "
+                                 "impeller elevation are drawn by convention."));
   {
     const double x = c->g.bar_x + c->g.bar_width + 0.5 * text_width (c, c->g.bar_label, ty->small)
                      + 2.0 * ty->small;
     const double avail = c->w - ty->pad - x;
-    const char *line2 = "Preliminary: verify with a licensed professional engineer.";
+    const char *line2 = _("Preliminary: verify with a licensed professional engineer.");
     if (text_width (c, drafting, ty->small) <= avail && text_width (c, line2, ty->small) <= avail)
       {
         text (c, c->w - ty->pad, c->h - ty->pad - 2.3 * ty->small, drafting, ty->small, FALSE, 1.0,
@@ -2795,8 +2832,8 @@ sheet (Ctx *c, const BwProject *p, const BwProcessUnit *u, const Unit *n, BwSket
               0.0, st->ink_muted);
       }
     else
-      text (c, c->w - ty->pad, c->h - ty->pad - 1.6 * ty->small, "Preliminary; drawn by convention "
-            "where the inputs are silent.", 0.85 * ty->small, FALSE, 1.0, 0.0, st->ink_muted);
+      text (c, c->w - ty->pad, c->h - ty->pad - 1.6 * ty->small, _("Preliminary; drawn by convention "
+              "where the inputs are silent."), 0.85 * ty->small, FALSE, 1.0, 0.0, st->ink_muted);
   }
 }
 

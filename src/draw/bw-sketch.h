@@ -72,6 +72,11 @@ gboolean bw_sketch_layout (const BwProject *p, const BwProcessUnit *u, BwSketchV
                            BwUnitSystem units, const BwStyle *style, double width, double height,
                            BwSketchGeometry *out, GError **error);
 
+/* For a train schematic laid out as G (bw_sketch_layout, BW_SKETCH_SCHEMATIC) of a train of
+ * N_UNITS units: the index of the unit whose block holds the page point X, Y (the column of the
+ * block within the band the blocks take), or -1 between and outside them. For hit-testing. */
+int bw_sketch_schematic_block_at (const BwSketchGeometry *g, guint n_units, double x, double y);
+
 /* Paints VIEW of unit U of project P to scale on CR, filling the WIDTH x HEIGHT page box at
  * CR's current origin: title, the unit, labelled dimensions in UNITS, a scale bar and a note.
  * The schematic evaluates P with bw_project_evaluate and shows the results of the maximum-day

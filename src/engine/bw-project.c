@@ -19,6 +19,9 @@ bw_project_new (void)
   p->cases = g_array_new (FALSE, TRUE, sizeof (BwLoadCase));
   p->foreign = g_ptr_array_new_with_free_func (g_free);
   p->jar_tests = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_jar_test_record_free);
+  p->column_tests = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_column_test_record_free);
+  p->stated = g_ptr_array_new_with_free_func ((GDestroyNotify) bw_stated_free);
+  p->review_tolerance = BW_REVIEW_TOLERANCE_DEFAULT;
   p->chemistry.kind = BW_COAGULANT_ALUM;
   p->chemistry.hydrate_waters = 14;
   p->chemistry.ss_factor = 1.3;
@@ -43,6 +46,8 @@ bw_project_free (BwProject *p)
   g_array_unref (p->cases);
   g_ptr_array_unref (p->foreign);
   g_ptr_array_unref (p->jar_tests);
+  g_ptr_array_unref (p->column_tests);
+  g_ptr_array_unref (p->stated);
   g_free (p->chemistry.jar_test);
   g_free (p);
 }
@@ -66,6 +71,183 @@ bw_jar_test_record_free (BwJarTestRecord *r)
   g_free (r->id);
   g_free (r->name);
   g_free (r);
+}
+
+BwStated *
+bw_stated_copy (const BwStated *s)
+{
+  BwStated *c;
+
+  g_return_val_if_fail (s != NULL, NULL);
+  c = g_new (BwStated, 1);
+  *c = *s;
+  c->element = g_strdup (s->element);
+  c->comment = g_strdup (s->comment);
+  return c;
+}
+
+void
+bw_stated_free (BwStated *s)
+{
+  if (s == NULL)
+    return;
+  g_free (s->element);
+  g_free (s->comment);
+  g_free (s);
+}
+
+/* Same statement and comment; where it was read (line) does not count. */
+static gboolean
+stated_equal (const BwStated *a, const BwStated *b)
+{
+  if (g_strcmp0 (a->element, b->element) || a->quantity != b->quantity || a->which != b->which
+      || a->value != b->value || g_strcmp0 (a->comment, b->comment))
+    return FALSE;
+  return a->which != BW_STATED_CASE
+         || (a->load_case.flow == b->load_case.flow && a->load_case.temp == b->load_case.temp
+             && a->load_case.service == b->load_case.service);
+}
+
+BwColumnTestRecord *
+bw_column_test_record_new (const char *id, const char *name)
+{
+  BwColumnTestRecord *r = g_new0 (BwColumnTestRecord, 1);
+
+  r->id = g_strdup (id);
+  r->name = g_strdup (name);
+  r->kind = BW_COLUMN_READING_REMOVAL;
+  r->units = g_ptr_array_new_with_free_func (g_free);
+  return r;
+}
+
+void
+bw_column_test_record_free (BwColumnTestRecord *r)
+{
+  if (r == NULL)
+    return;
+  g_free (r->id);
+  g_free (r->name);
+  g_ptr_array_unref (r->units);
+  g_free (r);
+}
+
+static GPtrArray *copy_strings (GPtrArray *a);
+static gboolean strings_equal (GPtrArray *a, GPtrArray *b);
+
+BwColumnTestRecord *
+bw_column_test_record_copy (const BwColumnTestRecord *r)
+{
+  BwColumnTestRecord *c;
+
+  g_return_val_if_fail (r != NULL, NULL);
+  c = g_new (BwColumnTestRecord, 1);
+  *c = *r;
+  c->id = g_strdup (r->id);
+  c->name = g_strdup (r->name);
+  c->units = copy_strings (r->units);
+  return c;
+}
+
+gboolean
+bw_column_test_record_equal (const BwColumnTestRecord *a, const BwColumnTestRecord *b)
+{
+  g_return_val_if_fail (a != NULL && b != NULL, FALSE);
+  if (g_strcmp0 (a->id, b->id) || g_strcmp0 (a->name, b->name) || a->initial_kg_m3 != b->initial_kg_m3
+      || a->kind != b->kind || a->n_depths != b->n_depths || a->n_times != b->n_times
+      || !strings_equal (a->units, b->units))
+    return FALSE;
+  if (a->n_depths > BW_COLUMN_MAX_DEPTHS || a->n_times > BW_COLUMN_MAX_TIMES)
+    return FALSE;
+  for (guint j = 0; j < a->n_depths; j++)
+    {
+      if (a->depth_m[j] != b->depth_m[j])
+        return FALSE;
+      for (guint k = 0; k < a->n_times; k++)
+        if (a->reading[j][k] != b->reading[j][k])
+          return FALSE;
+    }
+  for (guint k = 0; k < a->n_times; k++)
+    if (a->time_s[k] != b->time_s[k])
+      return FALSE;
+  return TRUE;
+}
+
+gboolean
+bw_column_test_record_column (const BwColumnTestRecord *r, BwSettlingColumn *out, GError **error)
+{
+  g_autoptr (GError) local = NULL;
+  const char *id;
+
+  g_return_val_if_fail (r != NULL && out != NULL, FALSE);
+  id = r->id ? r->id : "";
+  memset (out, 0, sizeof *out);
+  if (r->n_depths < 1 || r->n_depths > BW_COLUMN_MAX_DEPTHS || r->n_times < 1
+      || r->n_times > BW_COLUMN_MAX_TIMES)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                   "column test %s: %u ports and %u sampling times; 1 to %d ports and 1 to %d "
+                   "times are accepted", id, r->n_depths, r->n_times, BW_COLUMN_MAX_DEPTHS,
+                   BW_COLUMN_MAX_TIMES);
+      return FALSE;
+    }
+  if (!bw_check_finite (r->initial_kg_m3, "initial concentration", &local)
+      || !bw_check_nonnegative (r->initial_kg_m3, "initial concentration", &local))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, local->code, "column test %s: %s", id, local->message);
+      return FALSE;
+    }
+  if (r->kind == BW_COLUMN_READING_CONCENTRATION && !(r->initial_kg_m3 > 0))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "column test %s: initial concentration: concentration readings need the "
+                   "initial concentration C0 (greater than zero)", id);
+      return FALSE;
+    }
+  out->n_depths = r->n_depths;
+  out->n_times = r->n_times;
+  memcpy (out->depth_m, r->depth_m, sizeof out->depth_m);
+  memcpy (out->time_s, r->time_s, sizeof out->time_s);
+  for (guint j = 0; j < r->n_depths; j++)
+    for (guint k = 0; k < r->n_times; k++)
+      {
+        const double v = r->reading[j][k];
+        if (r->kind == BW_COLUMN_READING_CONCENTRATION)
+          {
+            if (!isfinite (v) || v < 0 || v > r->initial_kg_m3)
+              {
+                g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                             "column test %s: concentration: %g mg/L at depth %g m and %g min is "
+                             "not between 0 and the initial %g mg/L", id, v * 1000.0,
+                             r->depth_m[j], r->time_s[k] / 60.0, r->initial_kg_m3 * 1000.0);
+                return FALSE;
+              }
+            /* Removal fraction R = 1 - C / C0 (the definition of the column's readings;
+             * concentrations in kg/m3). */
+            out->removal[j][k] = 1.0 - v / r->initial_kg_m3;
+          }
+        else
+          out->removal[j][k] = v;
+      }
+  if (!bw_settling_column_check (out, &local))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, local->code, "column test %s: %s", id, local->message);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+const BwColumnTestRecord *
+bw_project_column_test_for (const BwProject *p, const char *unit_id)
+{
+  g_return_val_if_fail (p != NULL, NULL);
+  for (guint i = 0; unit_id && i < p->column_tests->len; i++)
+    {
+      const BwColumnTestRecord *r = g_ptr_array_index (p->column_tests, i);
+      for (guint k = 0; k < r->units->len; k++)
+        if (g_strcmp0 (g_ptr_array_index (r->units, k), unit_id) == 0)
+          return r;
+    }
+  return NULL;
 }
 
 gboolean
@@ -133,6 +315,11 @@ bw_project_copy (const BwProject *p)
         g_ptr_array_add (tc->units, bw_process_unit_copy (g_ptr_array_index (t->units, k)));
       g_ptr_array_add (c->trains, tc);
     }
+  for (guint i = 0; i < p->column_tests->len; i++)
+    g_ptr_array_add (c->column_tests, bw_column_test_record_copy (g_ptr_array_index (p->column_tests, i)));
+  for (guint i = 0; i < p->stated->len; i++)
+    g_ptr_array_add (c->stated, bw_stated_copy (g_ptr_array_index (p->stated, i)));
+  c->review_tolerance = p->review_tolerance;
   g_array_append_vals (c->cases, p->cases->data, p->cases->len);
   g_ptr_array_unref (c->foreign);
   c->foreign = copy_strings (p->foreign);
@@ -381,6 +568,106 @@ check_unit (const BwProcessUnit *u, GHashTable *ids, gboolean is_stage, GError *
   return TRUE;
 }
 
+/* A reviewer's comment: text a person types, kept exact in the project file, so no control
+ * character XML 1.0 cannot hold (a tab and line breaks are fine). */
+static gboolean
+check_comment (const char *text, guint index, GError **error)
+{
+  if (text == NULL)
+    return TRUE;
+  if (strlen (text) > 65536 || !g_utf8_validate (text, -1, NULL))
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                   "stated value %u: comment: not UTF-8 text of at most 65536 bytes", index);
+      return FALSE;
+    }
+  for (const char *c = text; *c; c++)
+    if ((guchar) *c < 0x20 && *c != '\t' && *c != '\n' && *c != '\r')
+      {
+        g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                     "stated value %u: comment: holds the control character 0x%02x", index,
+                     (guint) (guchar) *c);
+        return FALSE;
+      }
+  return TRUE;
+}
+
+static gboolean
+validate_review (const BwProject *p, GError **error)
+{
+  if (!isfinite (p->review_tolerance) || !(p->review_tolerance > 0) || p->review_tolerance > 1)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
+                   "review tolerance: must lie above 0 and at most 1 (100 %%) (got %g)",
+                   p->review_tolerance);
+      return FALSE;
+    }
+  for (guint i = 0; i < p->stated->len; i++)
+    {
+      const BwStated *s = g_ptr_array_index (p->stated, i);
+      if (s->element == NULL || s->element[0] == '\0')
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "stated value %u: element: empty", i + 1);
+          return FALSE;
+        }
+      if ((guint) s->quantity >= BW_N_QUANTITIES || (guint) s->which > BW_STATED_MINIMUM)
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "stated value %u (%s): quantity: not one Basinwright computes", i + 1, s->element);
+          return FALSE;
+        }
+      if (!isfinite (s->value))
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "stated value %u (%s %s): value: not a finite number", i + 1, s->element,
+                       bw_quantity_name (s->quantity));
+          return FALSE;
+        }
+      if (!check_comment (s->comment, i + 1, error))
+        return FALSE;
+    }
+  return TRUE;
+}
+
+static gboolean
+validate_column_tests (const BwProject *p, GError **error)
+{
+  g_autoptr (GHashTable) ids = g_hash_table_new (g_str_hash, g_str_equal);
+
+  for (guint i = 0; i < p->column_tests->len; i++)
+    {
+      const BwColumnTestRecord *r = g_ptr_array_index (p->column_tests, i);
+      BwSettlingColumn col;
+      if (r->id == NULL || r->id[0] == '\0' || !g_hash_table_add (ids, r->id))
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "column test id: '%s' is missing or used twice", r->id ? r->id : "");
+          return FALSE;
+        }
+      if (!bw_column_test_record_column (r, &col, error))
+        return FALSE;
+      for (guint k = 0; k < r->units->len; k++)
+        {
+          const char *uid = g_ptr_array_index (r->units, k);
+          const BwProcessUnit *u = bw_project_find_unit (p, uid, NULL);
+          /* An id that names no unit (a basin removed since) is kept but applies to nothing,
+           * so removing a basin is never refused for the column test that named it. */
+          if (u == NULL)
+            continue;
+          if (u->type != BW_PROCESS_RECTANGULAR_BASIN && u->type != BW_PROCESS_CIRCULAR_CLARIFIER)
+            {
+              g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                           "column test %s: applies to: '%s' is a %s, not a settling basin "
+                           "(a rectangular basin or circular clarifier)", r->id, uid,
+                           bw_process_type_label (u->type));
+              return FALSE;
+            }
+        }
+    }
+  return TRUE;
+}
+
 gboolean
 bw_project_validate (const BwProject *p, GError **error)
 {
@@ -513,7 +800,7 @@ bw_project_validate (const BwProject *p, GError **error)
           return FALSE;
         }
     }
-  return TRUE;
+  return validate_review (p, error) && validate_column_tests (p, error);
 }
 
 static BwProcessUnit *
@@ -623,6 +910,16 @@ bw_project_equal (const BwProject *a, const BwProject *b)
             return FALSE;
         }
     }
+  if (a->column_tests->len != b->column_tests->len || a->stated->len != b->stated->len
+      || a->review_tolerance != b->review_tolerance)
+    return FALSE;
+  for (guint i = 0; i < a->column_tests->len; i++)
+    if (!bw_column_test_record_equal (g_ptr_array_index (a->column_tests, i),
+                                      g_ptr_array_index (b->column_tests, i)))
+      return FALSE;
+  for (guint i = 0; i < a->stated->len; i++)
+    if (!stated_equal (g_ptr_array_index (a->stated, i), g_ptr_array_index (b->stated, i)))
+      return FALSE;
   if (a->trains->len != b->trains->len || a->cases->len != b->cases->len
       || !strings_equal (a->foreign, b->foreign))
     return FALSE;

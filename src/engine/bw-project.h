@@ -8,6 +8,7 @@
 #include "engine/bw-criteria.h"
 #include "engine/bw-jartest.h"
 #include "engine/bw-params.h"
+#include "engine/bw-removal.h"
 
 G_BEGIN_DECLS
 
@@ -77,6 +78,65 @@ typedef struct
   gboolean enabled;
 } BwLoadCase;
 
+/* Which value of a quantity a submittal states: in one load case, or the governing extreme. */
+typedef enum
+{
+  BW_STATED_CASE,    /* in the load case CASE */
+  BW_STATED_MAXIMUM, /* the largest over the load cases */
+  BW_STATED_MINIMUM, /* the smallest over the load cases */
+} BwStatedWhich;
+
+/* One value a submittal states, with the reviewer's comment on it; read from a stated-values CSV
+ * or kept in the project's review record. */
+typedef struct
+{
+  char *element;       /* unit or stage id */
+  BwQuantity quantity;
+  BwStatedWhich which;
+  BwLoadCase load_case; /* for BW_STATED_CASE */
+  double value;         /* SI */
+  char *comment;        /* the reviewer's note, or NULL */
+  guint line;           /* where it was read, for messages (0 if not from a file) */
+} BwStated;
+
+/* The review tolerance of a new project, the same as the CLI's default (1 %). */
+#define BW_REVIEW_TOLERANCE_DEFAULT 0.01
+
+BwStated *bw_stated_copy (const BwStated *s);
+void bw_stated_free (BwStated *s);
+
+/* What a settling-column test recorded at each port and time. */
+typedef enum
+{
+  BW_COLUMN_READING_REMOVAL,       /* fraction removed R = 1 - C / C0, 0-1 */
+  BW_COLUMN_READING_CONCENTRATION, /* suspended solids C (kg/m³); needs C0 */
+} BwColumnReadingKind;
+
+/* A settling-column test (Type II, flocculent settling) kept with the project. */
+typedef struct
+{
+  char *id;
+  char *name;
+  double initial_kg_m3;          /* C0, kg/m³; 0 when not given */
+  BwColumnReadingKind kind;
+  guint n_depths;                /* ports, 1 to BW_COLUMN_MAX_DEPTHS */
+  guint n_times;                 /* sampling times, 1 to BW_COLUMN_MAX_TIMES */
+  double depth_m[BW_COLUMN_MAX_DEPTHS]; /* m below the surface, increasing */
+  double time_s[BW_COLUMN_MAX_TIMES];   /* s, increasing */
+  double reading[BW_COLUMN_MAX_DEPTHS][BW_COLUMN_MAX_TIMES]; /* [port][time], by KIND (SI) */
+  GPtrArray *units;              /* char*: ids of the settling units it applies to (may be empty) */
+} BwColumnTestRecord;
+
+BwColumnTestRecord *bw_column_test_record_new (const char *id, const char *name);
+BwColumnTestRecord *bw_column_test_record_copy (const BwColumnTestRecord *r);
+void bw_column_test_record_free (BwColumnTestRecord *r);
+gboolean bw_column_test_record_equal (const BwColumnTestRecord *a, const BwColumnTestRecord *b);
+
+/* The removal grid of R (concentrations turned into 1 - C / C0), checked by
+ * bw_settling_column_check; errors start with "column test ID: ". */
+gboolean bw_column_test_record_column (const BwColumnTestRecord *r, BwSettlingColumn *out,
+                                       GError **error);
+
 typedef struct
 {
   char *name;
@@ -88,6 +148,9 @@ typedef struct
   BwDesignBasis basis;
   BwChemistryBasis chemistry;
   GPtrArray *jar_tests; /* BwJarTestRecord* */
+  GPtrArray *column_tests; /* BwColumnTestRecord*, owned, never NULL */
+  GPtrArray *stated;    /* BwStated*: the review record's stated values, owned, never NULL */
+  double review_tolerance; /* relative fraction flagged as a discrepancy, (0, 1]; default 0.01 */
   GPtrArray *trains; /* BwTrain* */
   GArray *cases;     /* BwLoadCase */
   GPtrArray *foreign;/* char*: XML of unknown top-level elements kept from a newer file */
@@ -102,6 +165,9 @@ gboolean bw_project_coagulant (const BwProject *p, BwCoagulant *out, GError **er
 
 BwJarTestRecord *bw_jar_test_record_new (const char *id, const char *name);
 void bw_jar_test_record_free (BwJarTestRecord *r);
+
+/* The first column test that applies to the unit UNIT_ID, or NULL. */
+const BwColumnTestRecord *bw_project_column_test_for (const BwProject *p, const char *unit_id);
 
 BwTrain *bw_train_new (const char *id, const char *name);
 void bw_train_free (BwTrain *t);

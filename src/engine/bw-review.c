@@ -8,16 +8,6 @@
 #include <stdlib.h>
 #include <string.h>
 
-void
-bw_stated_free (BwStated *s)
-{
-  if (s == NULL)
-    return;
-  g_free (s->element);
-  g_free (s->comment);
-  g_free (s);
-}
-
 const char *
 bw_finding_kind_name (BwFindingKind k)
 {

@@ -8,26 +8,8 @@
 
 G_BEGIN_DECLS
 
-/* Which value of a quantity a submittal states: in one load case, or the governing extreme. */
-typedef enum
-{
-  BW_STATED_CASE,    /* in the load case CASE */
-  BW_STATED_MAXIMUM, /* the largest over the load cases */
-  BW_STATED_MINIMUM, /* the smallest over the load cases */
-} BwStatedWhich;
-
-typedef struct
-{
-  char *element;       /* unit or stage id */
-  BwQuantity quantity;
-  BwStatedWhich which;
-  BwLoadCase load_case; /* for BW_STATED_CASE */
-  double value;         /* SI */
-  char *comment;        /* the reviewer's note, or NULL */
-  guint line;           /* where it was read, for messages (0 if not from a file) */
-} BwStated;
-
-void bw_stated_free (BwStated *s);
+/* BwStated, BwStatedWhich and bw_stated_free/copy live in engine/bw-project.h (the project
+ * stores them); bw-evaluate.h includes it. */
 
 typedef enum
 {

@@ -4,6 +4,7 @@
 
 #include "gui/bw-application.h"
 
+#include <glib/gi18n.h>
 #include <glib/gstdio.h>
 #include <signal.h>
 #include <string.h>
@@ -21,44 +22,106 @@ struct _BwApplication
   BwUnitSystem units;
   gboolean dark;
   gboolean recovery_checked;
+  GSettings *settings;   /* NULL when the schema cannot be found */
+  char *last_criteria;   /* the session's choice when there is no schema */
+  BwReportPaper paper;   /* likewise */
 };
 
 G_DEFINE_FINAL_TYPE (BwApplication, bw_application, GTK_TYPE_APPLICATION)
 
-/* --- settings: a small key file in the user's config dir --- */
+/* --- settings: GSettings (org.basinwright.Basinwright) ---
+ *
+ * The schema is installed with the program. An uninstalled build finds the copy compiled into
+ * the build tree; when neither exists the preferences still work for the session, they are
+ * only not kept (a debug message says so). */
 
-static char *
-settings_path (void)
+#define BW_SETTINGS_SCHEMA "org.basinwright.Basinwright"
+
+static GSettings *
+settings_open (void)
 {
-  return g_build_filename (g_get_user_config_dir (), "basinwright", "settings.ini", NULL);
+  GSettingsSchemaSource *source = g_settings_schema_source_get_default ();
+  g_autoptr (GSettingsSchema) schema = NULL;
+  g_autoptr (GSettingsSchemaSource) build_source = NULL;
+
+  if (source)
+    schema = g_settings_schema_source_lookup (source, BW_SETTINGS_SCHEMA, TRUE);
+  if (schema == NULL)
+    {
+      build_source = g_settings_schema_source_new_from_directory (BW_BUILD_SCHEMADIR, source, FALSE, NULL);
+      if (build_source)
+        schema = g_settings_schema_source_lookup (build_source, BW_SETTINGS_SCHEMA, FALSE);
+    }
+  if (schema == NULL)
+    {
+      g_debug ("settings schema %s not found: preferences last for this session only", BW_SETTINGS_SCHEMA);
+      return NULL;
+    }
+  return g_settings_new_full (schema, NULL, NULL);
 }
 
 static void
 settings_load (BwApplication *self)
 {
-  g_autoptr (GKeyFile) kf = g_key_file_new ();
-  g_autofree char *path = settings_path ();
-  g_autofree char *units = NULL;
-
-  if (!g_key_file_load_from_file (kf, path, G_KEY_FILE_NONE, NULL))
+  if (self->settings == NULL)
     return;
-  units = g_key_file_get_string (kf, "workbench", "units", NULL);
-  if (units)
-    bw_unit_system_from_name (units, &self->units);
-  self->dark = g_key_file_get_boolean (kf, "workbench", "dark", NULL);
+  self->units = g_settings_get_enum (self->settings, "unit-system") == 1 ? BW_UNIT_SYSTEM_US
+                                                                          : BW_UNIT_SYSTEM_SI;
+  self->dark = g_settings_get_boolean (self->settings, "prefer-dark");
 }
 
 static void
 settings_save (BwApplication *self)
 {
-  g_autoptr (GKeyFile) kf = g_key_file_new ();
-  g_autofree char *path = settings_path ();
-  g_autofree char *dir = g_path_get_dirname (path);
+  if (self->settings == NULL)
+    return;
+  g_settings_set_enum (self->settings, "unit-system", self->units == BW_UNIT_SYSTEM_US ? 1 : 0);
+  g_settings_set_boolean (self->settings, "prefer-dark", self->dark);
+}
 
-  g_key_file_set_string (kf, "workbench", "units", self->units == BW_UNIT_SYSTEM_US ? "us" : "si");
-  g_key_file_set_boolean (kf, "workbench", "dark", self->dark);
-  if (g_mkdir_with_parents (dir, 0700) == 0)
-    g_key_file_save_to_file (kf, path, NULL); /* best effort: preferences are not precious */
+GSettings *
+bw_application_get_settings (BwApplication *self)
+{
+  g_return_val_if_fail (BW_IS_APPLICATION (self), NULL);
+  return self->settings;
+}
+
+char *
+bw_application_dup_last_criteria (BwApplication *self)
+{
+  g_return_val_if_fail (BW_IS_APPLICATION (self), NULL);
+  if (self->settings == NULL)
+    return g_strdup (self->last_criteria ? self->last_criteria : "textbook-ranges");
+  return g_settings_get_string (self->settings, "last-criteria-set");
+}
+
+void
+bw_application_remember_criteria (BwApplication *self, const char *criteria)
+{
+  g_return_if_fail (BW_IS_APPLICATION (self));
+  g_return_if_fail (criteria != NULL && criteria[0] != '\0');
+  g_free (self->last_criteria);
+  self->last_criteria = g_strdup (criteria);
+  if (self->settings)
+    g_settings_set_string (self->settings, "last-criteria-set", criteria);
+}
+
+BwReportPaper
+bw_application_get_paper (BwApplication *self)
+{
+  g_return_val_if_fail (BW_IS_APPLICATION (self), BW_REPORT_PAPER_A4);
+  if (self->settings == NULL)
+    return self->paper;
+  return g_settings_get_enum (self->settings, "paper") == 1 ? BW_REPORT_PAPER_LETTER : BW_REPORT_PAPER_A4;
+}
+
+void
+bw_application_set_paper (BwApplication *self, BwReportPaper paper)
+{
+  g_return_if_fail (BW_IS_APPLICATION (self));
+  self->paper = paper;
+  if (self->settings)
+    g_settings_set_enum (self->settings, "paper", paper == BW_REPORT_PAPER_LETTER ? 1 : 0);
 }
 
 static void
@@ -136,7 +199,7 @@ open_path (BwApplication *self, const char *path)
     {
       GtkWidget *d = gtk_message_dialog_new (GTK_WINDOW (w), GTK_DIALOG_MODAL | GTK_DIALOG_DESTROY_WITH_PARENT,
                                              GTK_MESSAGE_ERROR, GTK_BUTTONS_CLOSE,
-                                             "The project could not be opened");
+                                             "%s", _("The project could not be opened"));
       gtk_message_dialog_format_secondary_text (GTK_MESSAGE_DIALOG (d), "%s", error->message);
       g_signal_connect (d, "response", G_CALLBACK (gtk_window_destroy), NULL);
       gtk_window_present (GTK_WINDOW (w));
@@ -248,7 +311,7 @@ _bw_project_file_filter (void)
 {
   GtkFileFilter *f = gtk_file_filter_new ();
 
-  gtk_file_filter_set_name (f, "Basinwright projects (*.bwproj)");
+  gtk_file_filter_set_name (f, _("Basinwright projects (*.bwproj)"));
   gtk_file_filter_add_pattern (f, "*.bwproj");
   return f;
 }
@@ -261,8 +324,8 @@ action_open (GSimpleAction *a, GVariant *v, gpointer data)
 
   (void) a;
   (void) v;
-  d = gtk_file_chooser_native_new ("Open a Project", GTK_WINDOW (active_bw_window (self)),
-                                   GTK_FILE_CHOOSER_ACTION_OPEN, "_Open", "_Cancel");
+  d = gtk_file_chooser_native_new (_("Open a Project"), GTK_WINDOW (active_bw_window (self)),
+                                   GTK_FILE_CHOOSER_ACTION_OPEN, _("_Open"), _("_Cancel"));
   {
     g_autoptr (GtkFileFilter) filter = _bw_project_file_filter ();
     gtk_file_chooser_add_filter (GTK_FILE_CHOOSER (d), filter); /* the chooser takes its own ref */
@@ -294,16 +357,19 @@ action_quit (GSimpleAction *a, GVariant *v, gpointer data)
 static void
 action_about (GSimpleAction *a, GVariant *v, gpointer data)
 {
-  const char *authors[] = { "The Basinwright developers", NULL };
+  const char *authors[] = { _("The Basinwright developers"), NULL };
+  g_autofree char *comments = g_strdup_printf ("%s\n\n%s %s",
+                                               _("A workbench for sizing the coagulation, "
+                                                 "flocculation and sedimentation train of a "
+                                                 "water treatment plant."),
+                                               _("Caution."), _(BW_CAUTION_TEXT));
 
   (void) a;
   (void) v;
   gtk_show_about_dialog (GTK_WINDOW (active_bw_window (data)),
                          "program-name", "Basinwright",
                          "version", PACKAGE_VERSION,
-                         "comments", "A workbench for sizing the coagulation, flocculation and "
-                                     "sedimentation train of a water treatment plant.\n\n"
-                                     "Caution. " BW_CAUTION_TEXT,
+                         "comments", comments,
                          "license-type", GTK_LICENSE_GPL_3_0,
                          "authors", authors,
                          "logo-icon-name", "applications-science",
@@ -410,11 +476,16 @@ bw_application_startup (GApplication *app)
     { "win.undo", { "<Primary>z", NULL } },
     { "win.redo", { "<Primary><Shift>z", "<Primary>y", NULL } },
     { "win.duplicate-unit", { "<Primary>d", NULL } },
+    { "win.autosize", { "<Primary><Shift>a", "F7", NULL } },
     { "win.close", { "<Primary>w", NULL } },
     { "win.page('unit')", { "<Alt>1", NULL } },
     { "win.page('checks')", { "<Alt>2", NULL } },
     { "win.page('basis')", { "<Alt>3", NULL } },
     { "win.page('sketch')", { "<Alt>4", NULL } },
+    { "win.page('chemistry')", { "<Alt>5", NULL } },
+    { "win.page('review')", { "<Alt>6", NULL } },
+    { "win.export-report", { "<Primary>p", NULL } },
+    { "win.help", { "F1", NULL } },
   };
 
   G_APPLICATION_CLASS (bw_application_parent_class)->startup (app);
@@ -426,6 +497,7 @@ bw_application_startup (GApplication *app)
   for (guint i = 0; i < G_N_ELEMENTS (accels); i++)
     gtk_application_set_accels_for_action (GTK_APPLICATION (self), accels[i].action, accels[i].accels);
 
+  self->settings = settings_open ();
   settings_load (self);
   g_action_group_change_action_state (G_ACTION_GROUP (self), "unit-system",
                                       g_variant_new_string (self->units == BW_UNIT_SYSTEM_US ? "us" : "si"));
@@ -466,9 +538,21 @@ bw_application_open (GApplication *app, GFile **files, int n_files, const char *
 }
 
 static void
+bw_application_finalize (GObject *object)
+{
+  BwApplication *self = BW_APPLICATION (object);
+
+  g_clear_object (&self->settings);
+  g_free (self->last_criteria);
+  G_OBJECT_CLASS (bw_application_parent_class)->finalize (object);
+}
+
+static void
 bw_application_class_init (BwApplicationClass *klass)
 {
   GApplicationClass *app_class = G_APPLICATION_CLASS (klass);
+
+  G_OBJECT_CLASS (klass)->finalize = bw_application_finalize;
 
   /* The resources live in this static library; referencing them links them in (their
    * constructor registers them). */
@@ -482,6 +566,7 @@ static void
 bw_application_init (BwApplication *self)
 {
   self->units = BW_UNIT_SYSTEM_SI;
+  self->paper = BW_REPORT_PAPER_A4;
 }
 
 BwApplication *

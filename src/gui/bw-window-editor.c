@@ -3,14 +3,16 @@
  * page. Every widget shows the model; typed values become edits; refused ones are flagged. */
 #include "config.h"
 
+#include <glib/gi18n.h>
 #include <math.h>
 
 #include "engine/bw-edit.h"
 #include "engine/bw-error.h"
+#include "gui/bw-locale.h"
 #include "gui/bw-window-private.h"
 
 static const char *const raw_ids[] = { "raw:turbidity", "raw:alkalinity", "raw:ph" };
-static const char *const raw_labels[] = { "turbidity", "alkalinity (as CaCO₃)", "pH" };
+static const char *const raw_labels[] = { N_("turbidity"), N_("alkalinity (as CaCO₃)"), N_("pH") };
 static const BwQuantityKind raw_kinds[] = { BW_KIND_TURBIDITY, BW_KIND_CONCENTRATION, BW_KIND_NUMBER };
 
 void
@@ -61,6 +63,10 @@ bw_window_get_field_widget (BwWindow *self, const char *field_id)
     return GTK_WIDGET (self->parallel_spin);
   if (g_strcmp0 (field_id, "standby") == 0)
     return GTK_WIDGET (self->standby_spin);
+  if (g_strcmp0 (field_id, "sketch-area") == 0)
+    return GTK_WIDGET (self->sketch_area);
+  if (g_strcmp0 (field_id, "sketch-view") == 0)
+    return _bw_window_sketch_view_dropdown (self);
   if (g_strcmp0 (field_id, "every-case") == 0)
     return GTK_WIDGET (self->every_case_toggle);
   if (g_strcmp0 (field_id, "criteria") == 0)
@@ -109,7 +115,7 @@ field_spec (BwField *f)
 static char *
 format_quantity (BwField *f, double v)
 {
-  return bw_units_format (v, f->qkind, f->window->units);
+  return bw_locale_format (v, f->qkind, f->window->units);
 }
 
 /* The text an entry shows for the model as it is. */
@@ -164,9 +170,9 @@ field_label (BwField *f)
     case BW_FIELD_TEMPERATURE:
       return bw_temp_kind_name ((BwTempKind) f->sub);
     case BW_FIELD_RAW_WATER:
-      return raw_labels[f->sub];
+      return _(raw_labels[f->sub]);
     default:
-      return "name";
+      return _("name");
     }
 }
 
@@ -187,12 +193,16 @@ parse_quantity (BwField *f, const char *text, double *out, gboolean *given, GErr
           *out = 0.0;
           return TRUE;
         }
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "%s: a value is needed",
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, _("%s: a value is needed"),
                    field_label (f));
       return FALSE;
     }
   field = g_strdup (field_label (f));
-  return bw_units_parse (stripped, f->qkind, du ? du->ascii : NULL, field, out, error);
+  {
+    /* The locale's decimal comma ("1,5 m") becomes the engine's point first. */
+    g_autofree char *c_text = bw_locale_delocalize_number (stripped);
+    return bw_units_parse (c_text, f->qkind, du ? du->ascii : NULL, field, out, error);
+  }
 }
 
 static BwEdit *
@@ -208,7 +218,7 @@ field_make_edit (BwField *f, const char *text, GError **error)
         g_autofree char *name = g_strstrip (g_strdup (text));
         if (name[0] == '\0')
           {
-            g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "name: a unit needs a name");
+            g_set_error_literal (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, _("name: a unit needs a name"));
             return NULL;
           }
         return bw_edit_rename_unit (f->unit_id, name);
@@ -218,7 +228,8 @@ field_make_edit (BwField *f, const char *text, GError **error)
         g_autofree char *name = g_strstrip (g_strdup (text));
         if (name[0] == '\0')
           {
-            g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "project name: it cannot be empty");
+            g_set_error_literal (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                                 _("project name: it cannot be empty"));
             return NULL;
           }
         return bw_edit_set_project_name (name);
@@ -308,6 +319,27 @@ field_refresh (BwField *f, gboolean force)
   self->updating = FALSE;
 }
 
+gboolean
+_bw_window_entry_has_typing (BwWindow *self, GtkWidget *focus)
+{
+  GtkWidget *entry = focus ? gtk_widget_get_ancestor (focus, GTK_TYPE_ENTRY) : NULL;
+  GPtrArray *lists[] = { self->fields, self->basis_fields };
+
+  if (entry == NULL)
+    return FALSE;
+  for (guint l = 0; l < G_N_ELEMENTS (lists); l++)
+    for (guint i = 0; lists[l] && i < lists[l]->len; i++)
+      {
+        BwField *f = g_ptr_array_index (lists[l], i);
+        if (f->widget == entry)
+          {
+            g_autofree char *model = field_text (f);
+            return g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (entry)), model) != 0;
+          }
+      }
+  return FALSE;
+}
+
 /* Makes the edit; on refusal flags the field with the engine's reason. */
 static void
 field_apply (BwField *f, BwEdit *edit, GError *parse_error)
@@ -317,7 +349,7 @@ field_apply (BwField *f, BwEdit *edit, GError *parse_error)
 
   if (edit == NULL || !bw_window_do_edit (self, edit, &error))
     {
-      field_flag (f, error ? error->message : "not accepted");
+      field_flag (f, error ? error->message : _("not accepted"));
       return;
     }
   field_refresh (f, TRUE);
@@ -467,10 +499,10 @@ placeholder_for (BwQuantityKind kind, BwUnitSystem units, gboolean optional)
   const BwUnit *du = bw_units_display_unit (kind, units);
 
   if (optional)
-    return g_strdup ("not given");
+    return g_strdup (_("not given"));
   if (du == NULL || du->symbol[0] == '\0')
-    return g_strdup ("a number");
-  return g_strdup_printf ("number, unit optional (%s)", du->symbol);
+    return g_strdup (_("a number"));
+  return g_strdup_printf (_("number, unit optional (%s)"), du->symbol);
 }
 
 /* --- the unit editor --- */
@@ -496,7 +528,7 @@ _bw_window_build_editor (BwWindow *self)
     u = bw_project_find_unit (self->project, self->selected_id, &train);
   if (u == NULL)
     {
-      const char *heading = "Select a unit or stage in the navigator";
+      const char *heading = _("Select a unit or stage in the navigator");
       for (guint i = 0; self->selected_train && i < self->project->trains->len; i++)
         {
           BwTrain *t = g_ptr_array_index (self->project->trains, i);
@@ -505,7 +537,7 @@ _bw_window_build_editor (BwWindow *self)
         }
       gtk_label_set_text (self->unit_heading, heading);
       gtk_label_set_text (self->unit_type_label,
-                          self->selected_train ? "A train: add units to it with the + button (or Insert)."
+                          self->selected_train ? _("A train: add units to it with the + button (or Insert).")
                                                : "");
       return;
     }
@@ -520,17 +552,18 @@ _bw_window_build_editor (BwWindow *self)
     }
   gtk_label_set_text (self->unit_heading, u->name ? u->name : u->id);
   {
-    g_autofree char *t = parent ? g_strdup_printf ("%s of %s · id %s", bw_process_type_label (u->type),
+    /* TRANSLATORS: "<kind> of <flocculator> · id <id>" and "<kind> in <train> · id <id>" */
+    g_autofree char *t = parent ? g_strdup_printf (_("%s of %s · id %s"), bw_process_type_label (u->type),
                                                    parent->name ? parent->name : parent->id, u->id)
-                                : g_strdup_printf ("%s in %s · id %s", bw_process_type_label (u->type),
+                                : g_strdup_printf (_("%s in %s · id %s"), bw_process_type_label (u->type),
                                                    train->name ? train->name : train->id, u->id);
     gtk_label_set_text (self->unit_type_label, t);
   }
 
   f = field_new (self, self->fields, BW_FIELD_UNIT_NAME, "name", u->id);
-  make_entry (f, "name");
-  row = attach_field (g, row, f, "name", "the name shown in the navigator, reports and checks");
-  row = section (g, row, "Parameters · type a value with any unit (60 ft, 12 in, 170 rpm)");
+  make_entry (f, _("name"));
+  row = attach_field (g, row, f, _("name"), _("the name shown in the navigator, reports and checks"));
+  row = section (g, row, _("Parameters · type a value with any unit (60 ft, 12 in, 170 rpm)"));
   specs = bw_params_of (u->type, &n);
   for (guint i = 0; i < n; i++)
     {
@@ -560,14 +593,14 @@ _bw_window_build_editor (BwWindow *self)
           g_assert_not_reached ();
         }
       {
-        g_autofree char *label = sp->optional ? g_strdup_printf ("%s (optional)", sp->label) : g_strdup (sp->label);
+        g_autofree char *label = sp->optional ? g_strdup_printf (_("%s (optional)"), sp->label) : g_strdup (sp->label);
         row = attach_field (g, row, f, label, sp->help);
       }
     }
   if (u->type == BW_PROCESS_FLOCCULATOR)
     {
-      GtkWidget *l = gtk_label_new ("Its stages are listed under it in the navigator: select one to edit "
-                                    "it, or add one with the + button.");
+      GtkWidget *l = gtk_label_new (_("Its stages are listed under it in the navigator: select one to edit "
+                                      "it, or add one with the + button."));
       gtk_label_set_wrap (GTK_LABEL (l), TRUE);
       gtk_label_set_xalign (GTK_LABEL (l), 0);
       gtk_widget_add_css_class (l, "dim-label");
@@ -679,6 +712,9 @@ criteria_changed (GtkDropDown *dd, GParamSpec *pspec, gpointer data)
     return;
   if (!bw_window_do_edit (self, bw_edit_set_criteria (set->id), &error))
     _bw_window_set_status (self, error->message);
+  else if (BW_IS_APPLICATION (gtk_window_get_application (GTK_WINDOW (self))))
+    bw_application_remember_criteria (BW_APPLICATION (gtk_window_get_application (GTK_WINDOW (self))),
+                                      set->id);
 }
 
 static void
@@ -700,7 +736,7 @@ criteria_refresh (BwWindow *self)
     }
   if (selected == GTK_INVALID_LIST_POSITION)
     {
-      g_autofree char *label = g_strdup_printf ("%s (not among the sets found)", want);
+      g_autofree char *label = g_strdup_printf (_("%s (not among the sets found)"), want);
       gtk_string_list_append (list, label);
       selected = self->criteria_sets->len;
     }
@@ -724,10 +760,12 @@ criteria_refresh (BwWindow *self)
     {
       const char *d = self->criteria->description;
       const gboolean stop = d && g_str_has_suffix (d, ".");
-      g_autofree char *note = g_strdup_printf ("%u criteria%s%s%s Limits are only as good as their "
-                                               "citation: check the edition in force.",
-                                               self->criteria->criteria->len, d ? ": " : "", d ? d : "",
-                                               stop ? "" : ".");
+      const guint nc = self->criteria->criteria->len;
+      g_autofree char *count = g_strdup_printf (ngettext ("%u criterion", "%u criteria", nc), nc);
+      /* TRANSLATORS: "<N criteria>[: <description>]. Limits are ..." */
+      g_autofree char *note = g_strdup_printf (_("%s%s%s%s Limits are only as good as their "
+                                                 "citation: check the edition in force."),
+                                               count, d ? ": " : "", d ? d : "", stop ? "" : ".");
       gtk_label_set_text (self->criteria_note, note);
     }
   else
@@ -746,12 +784,12 @@ _bw_window_build_basis (BwWindow *self)
   g_ptr_array_set_size (self->basis_fields, 0);
   self->updating = FALSE;
 
-  row = section (g, row, "Project");
+  row = section (g, row, _("Project"));
   f = field_new (self, self->basis_fields, BW_FIELD_PROJECT_NAME, "project-name", NULL);
-  make_entry (f, "project name");
-  row = attach_field (g, row, f, "project name", "the plant's name, shown in the title and reports");
+  make_entry (f, _("project name"));
+  row = attach_field (g, row, f, _("project name"), _("the plant's name, shown in the title and reports"));
 
-  row = section (g, row, "Plant flows (split equally among the trains)");
+  row = section (g, row, _("Plant flows (split equally among the trains)"));
   for (int k = 0; k < BW_N_FLOW_KINDS; k++)
     {
       g_autofree char *id = g_strdup_printf ("flow:%s", bw_flow_kind_name ((BwFlowKind) k));
@@ -763,10 +801,10 @@ _bw_window_build_basis (BwWindow *self)
       ph = placeholder_for (BW_KIND_FLOW, self->units, f->optional);
       make_entry (f, ph);
       row = attach_field (g, row, f, bw_flow_kind_label ((BwFlowKind) k),
-                          k == BW_FLOW_MAXIMUM_DAY ? "required: the plant's maximum-day flow"
-                                                   : "optional; leave empty when not given");
+                          k == BW_FLOW_MAXIMUM_DAY ? _("required: the plant's maximum-day flow")
+                                                   : _("optional; leave empty when not given"));
     }
-  row = section (g, row, "Water temperatures");
+  row = section (g, row, _("Water temperatures"));
   for (int k = 0; k < BW_N_TEMP_KINDS; k++)
     {
       g_autofree char *id = g_strdup_printf ("temperature:%s", bw_temp_kind_name ((BwTempKind) k));
@@ -776,9 +814,9 @@ _bw_window_build_basis (BwWindow *self)
       f->qkind = BW_KIND_TEMPERATURE;
       make_entry (f, ph);
       row = attach_field (g, row, f, bw_temp_kind_name ((BwTempKind) k),
-                          "cold water is more viscous: it governs many criteria");
+                          _("cold water is more viscous: it governs many criteria"));
     }
-  row = section (g, row, "Raw water");
+  row = section (g, row, _("Raw water"));
   for (guint k = 0; k < G_N_ELEMENTS (raw_ids); k++)
     {
       g_autofree char *ph = placeholder_for (raw_kinds[k], self->units, FALSE);
@@ -786,7 +824,7 @@ _bw_window_build_basis (BwWindow *self)
       f->sub = k;
       f->qkind = raw_kinds[k];
       make_entry (f, ph);
-      row = attach_field (g, row, f, raw_labels[k], NULL);
+      row = attach_field (g, row, f, _(raw_labels[k]), NULL);
     }
   self->n_case_rows = G_MAXUINT;
   g_signal_handlers_disconnect_by_func (self->criteria_dropdown, criteria_changed, self);

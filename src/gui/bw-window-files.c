@@ -3,6 +3,7 @@
 #include "config.h"
 
 #include <errno.h>
+#include <glib/gi18n.h>
 #include <glib/gstdio.h>
 #include <string.h>
 #include <unistd.h>
@@ -57,7 +58,7 @@ bw_window_autosave_now (BwWindow *self)
   if (g_mkdir_with_parents (dir, 0700) != 0
       || !bw_project_save (self->project, self->autosave_path, &error))
     {
-      g_autofree char *msg = g_strdup_printf ("autosave failed: %s", error ? error->message : g_strerror (errno));
+      g_autofree char *msg = g_strdup_printf (_("autosave failed: %s"), error ? error->message : g_strerror (errno));
       _bw_window_set_status (self, msg);
       return NULL;
     }
@@ -117,7 +118,7 @@ bw_window_save_to (BwWindow *self, const char *path, GError **error)
     gtk_recent_manager_add_item (gtk_recent_manager_get_default (), uri);
   _bw_window_update_title (self);
   {
-    g_autofree char *msg = g_strdup_printf ("Saved %s", path);
+    g_autofree char *msg = g_strdup_printf (_("Saved %s"), path);
     _bw_window_set_status (self, NULL);
     gtk_label_set_text (self->status_label, msg);
   }
@@ -154,7 +155,7 @@ save_as_response (GtkNativeDialog *dialog, int response, gpointer data)
           path = with;
         }
       if (path && !bw_window_save_to (self, path, &error))
-        show_error (self, "The project could not be saved", error->message);
+        show_error (self, _("The project could not be saved"), error->message);
       else if (path && then_close)
         {
           self->closing = TRUE;
@@ -168,8 +169,8 @@ save_as_response (GtkNativeDialog *dialog, int response, gpointer data)
 static void
 save_as_full (BwWindow *self, gboolean then_close)
 {
-  GtkFileChooserNative *d = gtk_file_chooser_native_new ("Save the Project", GTK_WINDOW (self),
-                                                         GTK_FILE_CHOOSER_ACTION_SAVE, "_Save", "_Cancel");
+  GtkFileChooserNative *d = gtk_file_chooser_native_new (_("Save the Project"), GTK_WINDOW (self),
+                                                         GTK_FILE_CHOOSER_ACTION_SAVE, _("_Save"), _("_Cancel"));
   g_autofree char *name = NULL;
 
   {
@@ -183,7 +184,7 @@ save_as_full (BwWindow *self, gboolean then_close)
     }
   else
     {
-      name = g_strdup_printf ("%s.bwproj", self->project->name ? self->project->name : "plant");
+      name = g_strdup_printf ("%s.bwproj", self->project->name ? self->project->name : _("plant"));
       g_strdelimit (name, "/\\:", '-');
       gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (d), name);
     }
@@ -209,7 +210,7 @@ _bw_window_save (BwWindow *self)
       return;
     }
   if (!bw_window_save_to (self, self->path, &error))
-    show_error (self, "The project could not be saved", error->message);
+    show_error (self, _("The project could not be saved"), error->message);
 }
 
 /* --- closing with unsaved changes --- */
@@ -234,7 +235,7 @@ close_response (GtkDialog *d, int response, gpointer data)
       if (self->path == NULL)
         save_as_full (self, TRUE);
       else if (!bw_window_save_to (self, self->path, &error))
-        show_error (self, "The project could not be saved", error->message);
+        show_error (self, _("The project could not be saved"), error->message);
       else
         {
           self->closing = TRUE;
@@ -256,12 +257,12 @@ _bw_window_close_request (GtkWindow *window)
     }
   d = gtk_message_dialog_new (window, GTK_DIALOG_MODAL | GTK_DIALOG_DESTROY_WITH_PARENT,
                               GTK_MESSAGE_QUESTION, GTK_BUTTONS_NONE,
-                              "Save the changes to “%s” before closing?",
-                              self->project->name ? self->project->name : "Untitled plant");
+                              _("Save the changes to “%s” before closing?"),
+                              self->project->name ? self->project->name : _("Untitled plant"));
   gtk_message_dialog_format_secondary_text (GTK_MESSAGE_DIALOG (d),
-                                            "If you close without saving, the changes are lost.");
-  gtk_dialog_add_buttons (GTK_DIALOG (d), "Close _without Saving", RESPONSE_DISCARD, "_Cancel",
-                          GTK_RESPONSE_CANCEL, "_Save", RESPONSE_SAVE, NULL);
+                                            "%s", _("If you close without saving, the changes are lost."));
+  gtk_dialog_add_buttons (GTK_DIALOG (d), _("Close _without Saving"), RESPONSE_DISCARD, _("_Cancel"),
+                          GTK_RESPONSE_CANCEL, _("_Save"), RESPONSE_SAVE, NULL);
   gtk_dialog_set_default_response (GTK_DIALOG (d), RESPONSE_SAVE);
   g_signal_connect (d, "response", G_CALLBACK (close_response), self);
   gtk_window_present (GTK_WINDOW (d));
@@ -285,8 +286,8 @@ bw_window_offer_recovery (BwWindow *self, const char *path)
   info = info_path (path);
   if (g_key_file_load_from_file (kf, info, G_KEY_FILE_NONE, NULL))
     name = g_key_file_get_string (kf, "autosave", "name", NULL);
-  text = g_strdup_printf ("Unsaved changes to “%s” from an earlier session were kept. Recover them?",
-                          name && name[0] ? name : "a project");
+  text = g_strdup_printf (_("Unsaved changes to “%s” from an earlier session were kept. Recover them?"),
+                          name && name[0] ? name : _("a project"));
   gtk_label_set_text (self->recovery_label, text);
   gtk_revealer_set_reveal_child (self->recovery_revealer, TRUE);
 }
@@ -319,7 +320,7 @@ action_recover (GtkWidget *w, const char *name, GVariant *v)
   p = bw_project_load (self->recovery_path, &error);
   if (p == NULL)
     {
-      show_error (self, "The autosaved project could not be read", error->message);
+      show_error (self, _("The autosaved project could not be read"), error->message);
       return;
     }
   info = info_path (self->recovery_path);

@@ -52,6 +52,7 @@ struct _BwWindow
   GtkSpinButton *standby_spin;
   GtkWidget *counts_grid;
   GtkStack *page_stack;
+  GtkWidget *page_switcher;
   GtkLabel *unit_heading;
   GtkLabel *unit_type_label;
   GtkGrid *editor_grid;
@@ -111,9 +112,16 @@ void _bw_window_build_basis (BwWindow *self);
 void _bw_window_refresh_basis (BwWindow *self);
 BwField *_bw_window_find_field (BwWindow *self, const char *id);
 void _bw_field_free (BwField *f);
+/* TRUE when FOCUS is (inside) an editor entry whose text is not the model's value: typing not
+ * yet applied, which Ctrl+Z undoes before any model edit. */
+gboolean _bw_window_entry_has_typing (BwWindow *self, GtkWidget *focus);
 
 /* bw-window-sketch.c: the drawing page (sketches and charts, zoom, pan, export). */
 void _bw_window_sketch_init (BwWindow *self);
+/* Selects the unit whose block of the train schematic is at X, Y of the drawing area (when the
+ * schematic is in view); FALSE when there is none. */
+gboolean _bw_window_sketch_select_at (BwWindow *self, double x, double y);
+GtkWidget *_bw_window_sketch_view_dropdown (BwWindow *self);
 
 /* bw-window-files.c: save, save as, close prompt, autosave, recovery. */
 void _bw_window_files_init (BwWindow *self);

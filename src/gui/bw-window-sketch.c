@@ -27,6 +27,7 @@ typedef enum
   VIEW_TAPER,
   VIEW_SETTLING,
   VIEW_REMOVAL,
+  VIEW_ISO_REMOVAL,
   VIEW_POWER,
   VIEW_MATRIX,
   N_VIEWS
@@ -34,7 +35,8 @@ typedef enum
 
 static const char *const view_labels[N_VIEWS + 1] = {
   N_("Plan"), N_("Section"), N_("Train schematic"), N_("Chart: G and Gt by stage"),
-  N_("Chart: settling velocity"), N_("Chart: removal"), N_("Chart: impeller power"),
+  N_("Chart: settling velocity"), N_("Chart: removal"), N_("Chart: iso-removal (column test)"),
+  N_("Chart: impeller power"),
   N_("Chart: checks by load case"), NULL,
 };
 
@@ -104,6 +106,8 @@ build_chart (BwWindow *self, ViewKind view, BwProcessUnit *u, BwProcessUnit *par
       return bw_chart_settling_curves (self->project, self->results, whole->id, 0, self->units, error);
     case VIEW_REMOVAL:
       return bw_chart_removal_curves (self->project, self->results, whole->id, self->units, error);
+    case VIEW_ISO_REMOVAL:
+      return bw_chart_iso_removal (self->project, self->results, whole->id, self->units, error);
     case VIEW_POWER:
       return bw_chart_impeller_power (self->project, self->results, self->checks, u->id, self->units, error);
     case VIEW_MATRIX:
@@ -252,6 +256,48 @@ drag_update (GtkGestureDrag *g, double dx, double dy, gpointer data)
   st->pan_x = st->drag_x0 + dx;
   st->pan_y = st->drag_y0 + dy;
   gtk_widget_queue_draw (GTK_WIDGET (((BwWindow *) data)->sketch_area));
+}
+
+GtkWidget *
+_bw_window_sketch_view_dropdown (BwWindow *self)
+{
+  return GTK_WIDGET (state_of (self)->view);
+}
+
+/* The train schematic is a navigator too: a click on a unit's block selects that unit. */
+gboolean
+_bw_window_sketch_select_at (BwWindow *self, double x, double y)
+{
+  SketchState *st = state_of (self);
+  GtkWidget *area = GTK_WIDGET (self->sketch_area);
+  const double width = gtk_widget_get_width (area), height = gtk_widget_get_height (area);
+  const double w = MAX (BW_SKETCH_MIN_SIDE, width * st->zoom), h = MAX (BW_SKETCH_MIN_SIDE, height * st->zoom);
+  BwProcessUnit *parent = NULL, *u = selected (self, &parent);
+  BwSketchGeometry g;
+  BwTrain *train = NULL;
+  int i;
+
+  if (u == NULL || gtk_drop_down_get_selected (st->view) != VIEW_SCHEMATIC)
+    return FALSE;
+  if (!bw_sketch_layout (self->project, u, BW_SKETCH_SCHEMATIC, self->units, style_for (area), w, h, &g, NULL))
+    return FALSE;
+  bw_project_find_unit (self->project, u->id, &train);
+  if (train == NULL)
+    return FALSE;
+  /* the same transform as sketch_draw: centred, then panned */
+  i = bw_sketch_schematic_block_at (&g, train->units->len, x - ((width - w) / 2 + st->pan_x),
+                                    y - ((height - h) / 2 + st->pan_y));
+  if (i < 0)
+    return FALSE;
+  return bw_window_select_unit (self, ((BwProcessUnit *) g_ptr_array_index (train->units, i))->id);
+}
+
+static void
+sketch_clicked (GtkGestureClick *click, int n_press, double x, double y, gpointer data)
+{
+  (void) click;
+  if (n_press == 1)
+    _bw_window_sketch_select_at (data, x, y);
 }
 
 static void
@@ -404,5 +450,10 @@ _bw_window_sketch_init (BwWindow *self)
   g_signal_connect (drag, "drag-begin", G_CALLBACK (drag_begin), self);
   g_signal_connect (drag, "drag-update", G_CALLBACK (drag_update), self);
   gtk_widget_add_controller (area, GTK_EVENT_CONTROLLER (drag));
+  {
+    GtkGesture *click = gtk_gesture_click_new ();
+    g_signal_connect (click, "released", G_CALLBACK (sketch_clicked), self);
+    gtk_widget_add_controller (area, GTK_EVENT_CONTROLLER (click));
+  }
   gtk_drawing_area_set_draw_func (self->sketch_area, sketch_draw, self, NULL);
 }

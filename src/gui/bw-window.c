@@ -3,10 +3,18 @@
 #include "config.h"
 
 #include "gui/bw-window.h"
+#include "gui/bw-help.h"
 
+#include <glib/gi18n.h>
 #include <math.h>
 
+#include "engine/bw-error.h"
 #include "engine/bw-evaluate.h"
+#include "gui/bw-autosize-dialog.h"
+#include "gui/bw-chem-view.h"
+#include "gui/bw-locale.h"
+#include "gui/bw-report-dialog.h"
+#include "gui/bw-review-view.h"
 #include "gui/bw-window-private.h"
 #include "io/bw-criteria-xml.h"
 #include "io/bw-project-xml.h"
@@ -233,8 +241,14 @@ _bw_window_set_status (BwWindow *self, const char *message)
     {
       g_autofree char *text = NULL;
       if (self->results)
-        text = g_strdup_printf ("%u load cases evaluated · %u elements · results update as you type",
-                                self->results->n_cases, self->results->elements->len);
+        {
+          const guint nc = self->results->n_cases, ne = self->results->elements->len;
+          g_autofree char *cases = g_strdup_printf (ngettext ("%u load case evaluated",
+                                                              "%u load cases evaluated", nc), nc);
+          g_autofree char *elements = g_strdup_printf (ngettext ("%u element", "%u elements", ne), ne);
+          /* TRANSLATORS: the status line: "16 load cases evaluated · 9 elements · ..." */
+          text = g_strdup_printf (_("%s · %s · results update as you type"), cases, elements);
+        }
       gtk_label_set_text (self->status_label, text ? text : "");
       gtk_widget_set_tooltip_text (GTK_WIDGET (self->status_label), NULL);
       gtk_widget_remove_css_class (bar, "bw-eval-error");
@@ -245,7 +259,7 @@ void
 _bw_window_update_title (BwWindow *self)
 {
   const gboolean modified = bw_edit_stack_is_modified (self->stack);
-  const char *name = self->project->name && self->project->name[0] ? self->project->name : "Untitled plant";
+  const char *name = self->project->name && self->project->name[0] ? self->project->name : _("Untitled plant");
   g_autofree char *title = g_strdup_printf ("%s%s", modified ? "• " : "", name);
   g_autofree char *wtitle = g_strdup_printf ("%s — Basinwright", title);
   g_autofree char *sub = NULL;
@@ -253,9 +267,9 @@ _bw_window_update_title (BwWindow *self)
   gtk_label_set_text (self->title_label, title);
   gtk_window_set_title (GTK_WINDOW (self), wtitle);
   if (self->path)
-    sub = g_strdup_printf ("%s%s", self->path, modified ? " (modified)" : "");
+    sub = g_strdup_printf ("%s%s", self->path, modified ? _(" (modified)") : "");
   else
-    sub = g_strdup (modified ? "not saved yet (modified)" : "not saved yet");
+    sub = g_strdup (modified ? _("not saved yet (modified)") : _("not saved yet"));
   gtk_label_set_text (self->subtitle_label, sub);
   gtk_widget_set_tooltip_text (GTK_WIDGET (self->subtitle_label), sub);
 }
@@ -269,23 +283,23 @@ type_short (BwProcessType t)
   switch (t)
     {
     case BW_PROCESS_RAPID_MIX:
-      return "rapid mix";
+      return _("rapid mix");
     case BW_PROCESS_INLINE_MIXER:
-      return "in-line mixer";
+      return _("in-line mixer");
     case BW_PROCESS_FLOCCULATOR:
-      return "flocculator";
+      return _("flocculator");
     case BW_PROCESS_RECTANGULAR_BASIN:
-      return "basin";
+      return _("basin");
     case BW_PROCESS_CIRCULAR_CLARIFIER:
-      return "clarifier";
+      return _("clarifier");
     case BW_PROCESS_PLATE_SETTLER:
-      return "plates/tubes";
+      return _("plates/tubes");
     case BW_STAGE_PADDLE:
-      return "paddles";
+      return _("paddles");
     case BW_STAGE_TURBINE:
-      return "turbine";
+      return _("turbine");
     case BW_STAGE_BAFFLED:
-      return "baffled";
+      return _("baffled");
     default:
       return bw_process_type_label (t);
     }
@@ -341,9 +355,9 @@ set_dot (BwWindow *self, GtkWidget *row)
       gtk_widget_add_css_class (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? "bw-dot-fail"
                                                   : s == BW_CHECK_WARN ? "bw-dot-warn"
                                                                        : "bw-dot-pass");
-      gtk_widget_set_tooltip_text (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? "a required criterion fails"
-                                                     : s == BW_CHECK_WARN ? "outside a preferred range"
-                                                                          : "every check passes");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? _("a required criterion fails")
+                                                     : s == BW_CHECK_WARN ? _("outside a preferred range")
+                                                                          : _("every check passes"));
     }
 }
 
@@ -365,10 +379,106 @@ nav_refresh (BwWindow *self)
     }
 }
 
+/* --- reordering by drag and drop: a unit row dropped on another row of the same train (or a
+ * stage on a stage of the same flocculator) takes that row's place, as one undoable move --- */
+
+gboolean
+bw_window_move_unit_to (BwWindow *self, const char *id, const char *target_id, GError **error)
+{
+  BwTrain *t1, *t2;
+  BwProcessUnit *p1, *p2;
+  guint i1, i2;
+
+  g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
+  if (locate (self->project, id, &t1, &p1, &i1) == NULL
+      || locate (self->project, target_id, &t2, &p2, &i2) == NULL)
+    {
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, _("move: no unit “%s”"),
+                   locate (self->project, id, &t1, &p1, &i1) == NULL ? id : target_id);
+      return FALSE;
+    }
+  if (t1 != t2 || p1 != p2)
+    {
+      g_set_error_literal (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                           p1 ? _("move: a stage moves only within its flocculator")
+                              : _("move: a unit moves only within its train"));
+      return FALSE;
+    }
+  if (i1 == i2)
+    return TRUE;
+  return bw_window_do_edit (self, bw_edit_move_unit (id, (int) i2 - (int) i1), error);
+}
+
+static GdkContentProvider *
+nav_drag_prepare (GtkDragSource *source, double x, double y, gpointer data)
+{
+  GtkWidget *row = gtk_event_controller_get_widget (GTK_EVENT_CONTROLLER (source));
+  const char *id = g_object_get_data (G_OBJECT (row), "bw-id");
+
+  (void) x;
+  (void) y;
+  (void) data;
+  if (id == NULL)
+    return NULL;
+  return gdk_content_provider_new_typed (G_TYPE_STRING, id);
+}
+
+static void
+nav_drag_begin (GtkDragSource *source, GdkDrag *drag, gpointer data)
+{
+  GtkWidget *row = gtk_event_controller_get_widget (GTK_EVENT_CONTROLLER (source));
+  g_autoptr (GdkPaintable) icon = gtk_widget_paintable_new (row);
+
+  (void) drag;
+  (void) data;
+  gtk_drag_source_set_icon (source, icon, 12, 12);
+}
+
+static gboolean
+nav_drop (GtkDropTarget *target, const GValue *value, double x, double y, gpointer data)
+{
+  BwWindow *self = data;
+  GtkWidget *row = gtk_event_controller_get_widget (GTK_EVENT_CONTROLLER (target));
+  const char *target_id = g_object_get_data (G_OBJECT (row), "bw-id");
+  g_autoptr (GError) error = NULL;
+  g_autofree char *id = NULL;
+
+  (void) x;
+  (void) y;
+  if (!G_VALUE_HOLDS_STRING (value) || target_id == NULL)
+    return FALSE;
+  id = g_value_dup_string (value);
+  if (!bw_window_move_unit_to (self, id, target_id, &error))
+    {
+      _bw_window_set_status (self, error->message);
+      return FALSE;
+    }
+  bw_window_select_unit (self, id);
+  return TRUE;
+}
+
+static void
+nav_row_enable_dnd (BwWindow *self, GtkWidget *row)
+{
+  GtkDragSource *source = gtk_drag_source_new ();
+  GtkDropTarget *target = gtk_drop_target_new (G_TYPE_STRING, GDK_ACTION_MOVE);
+
+  gtk_drag_source_set_actions (source, GDK_ACTION_MOVE);
+  g_signal_connect (source, "prepare", G_CALLBACK (nav_drag_prepare), self);
+  g_signal_connect (source, "drag-begin", G_CALLBACK (nav_drag_begin), self);
+  gtk_widget_add_controller (row, GTK_EVENT_CONTROLLER (source));
+  g_signal_connect (target, "drop", G_CALLBACK (nav_drop), self);
+  gtk_widget_add_controller (row, GTK_EVENT_CONTROLLER (target));
+}
+
 static void
 nav_rebuild (BwWindow *self)
 {
   GtkWidget *child, *select = NULL;
+  GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (self));
+  /* keyboard work in the list (Delete, Alt+Up/Down) goes on after the rows are rebuilt */
+  gboolean had_focus = focus && (focus == GTK_WIDGET (self->nav_list)
+                                 || gtk_widget_is_ancestor (focus, GTK_WIDGET (self->nav_list)));
 
   self->updating = TRUE;
   while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->nav_list))))
@@ -376,7 +486,7 @@ nav_rebuild (BwWindow *self)
   for (guint i = 0; i < self->project->trains->len; i++)
     {
       const BwTrain *t = g_ptr_array_index (self->project->trains, i);
-      GtkWidget *row = nav_row (NULL, t->id, t->name ? t->name : t->id, "train", 0, TRUE);
+      GtkWidget *row = nav_row (NULL, t->id, t->name ? t->name : t->id, _("train"), 0, TRUE);
       gtk_list_box_append (self->nav_list, row);
       if (self->selected_id == NULL && g_strcmp0 (self->selected_train, t->id) == 0)
         select = row;
@@ -387,6 +497,7 @@ nav_rebuild (BwWindow *self)
                                     ? g_strdup_printf ("%s ×%u", type_short (u->type), u->n_parallel)
                                     : g_strdup (type_short (u->type));
           row = nav_row (u->id, t->id, u->name ? u->name : u->id, kind, 1, FALSE);
+          nav_row_enable_dnd (self, row);
           gtk_list_box_append (self->nav_list, row);
           if (g_strcmp0 (self->selected_id, u->id) == 0)
             select = row;
@@ -394,6 +505,7 @@ nav_rebuild (BwWindow *self)
             {
               const BwProcessUnit *st = g_ptr_array_index (u->stages, s);
               row = nav_row (st->id, t->id, st->name ? st->name : st->id, type_short (st->type), 2, FALSE);
+              nav_row_enable_dnd (self, row);
               gtk_list_box_append (self->nav_list, row);
               if (g_strcmp0 (self->selected_id, st->id) == 0)
                 select = row;
@@ -410,7 +522,11 @@ nav_rebuild (BwWindow *self)
         select = gtk_widget_get_next_sibling (select);
     }
   if (select)
-    gtk_list_box_select_row (self->nav_list, GTK_LIST_BOX_ROW (select));
+    {
+      gtk_list_box_select_row (self->nav_list, GTK_LIST_BOX_ROW (select));
+      if (had_focus)
+        gtk_widget_grab_focus (select);
+    }
   else
     {
       g_clear_pointer (&self->selected_id, g_free);
@@ -479,9 +595,9 @@ counts_refresh (BwWindow *self)
   gtk_widget_set_sensitive (self->counts_grid, u != NULL && parent == NULL);
   gtk_widget_remove_css_class (GTK_WIDGET (self->parallel_spin), "error");
   gtk_widget_remove_css_class (GTK_WIDGET (self->standby_spin), "error");
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->parallel_spin), "identical units side by side");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->parallel_spin), _("identical units side by side"));
   gtk_widget_set_tooltip_text (GTK_WIDGET (self->standby_spin),
-                               "of those, how many may be out of service (firm capacity)");
+                               _("of those, how many may be out of service (firm capacity)"));
   gtk_spin_button_set_value (self->parallel_spin, u ? u->n_parallel : 1);
   gtk_spin_button_set_value (self->standby_spin, u ? u->n_standby : 0);
   self->updating = FALSE;
@@ -557,14 +673,14 @@ static char *
 case_compact (const BwLoadCase *c)
 {
   return g_strdup_printf ("%s, %s%s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
-                          c->service == BW_SERVICE_FIRM ? ", firm" : "");
+                          c->service == BW_SERVICE_FIRM ? _(", firm") : "");
 }
 
 static char *
 case_short (const BwLoadCase *c)
 {
   return g_strdup_printf ("%s\n%s\n%s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
-                          c->service == BW_SERVICE_FIRM ? "firm" : "all in service");
+                          c->service == BW_SERVICE_FIRM ? _("firm") : _("all in service"));
 }
 
 static char *
@@ -574,9 +690,9 @@ limit_text (const BwCheck *ck, BwUnitSystem units)
 
   if (!ck->has_limit)
     return g_strdup ("");
-  v = bw_units_format (ck->limit, bw_quantity_info (ck->criterion->quantity)->kind, units);
+  v = bw_locale_format (ck->limit, bw_quantity_info (ck->criterion->quantity)->kind, units);
   return g_strdup_printf ("%s %s%s", ck->limit_is_max ? "≤" : "≥", v,
-                          ck->limit_is_required ? "" : " (preferred)");
+                          ck->limit_is_required ? "" : _(" (preferred)"));
 }
 
 /* TRUE when the value of quantity Q in case C is the one that governs a check: the governing
@@ -605,21 +721,21 @@ results_rebuild (BwWindow *self)
   grid_clear (g);
   if (e < 0)
     {
-      gtk_label_set_text (self->results_heading, "Results");
-      cell (g, 0, 0, self->results ? "Select a unit or stage to see its results."
-                                   : "No results: the project does not evaluate (see the status bar).",
+      gtk_label_set_text (self->results_heading, _("Results"));
+      cell (g, 0, 0, self->results ? _("Select a unit or stage to see its results.")
+                                   : _("No results: the project does not evaluate (see the status bar)."),
             "dim-label", 0);
       return;
     }
   el = g_ptr_array_index (self->results->elements, e);
   {
-    g_autofree char *h = g_strdup_printf ("Results: %s", el->label);
+    g_autofree char *h = g_strdup_printf (_("Results: %s"), el->label);
     gtk_label_set_text (self->results_heading, h);
     gtk_widget_set_tooltip_text (GTK_WIDGET (self->results_heading),
-                                 "Every enabled load case, from the engine. A value that governs a "
-                                 "criterion is underlined; hover a criterion for its governing case.");
+                                 _("Every enabled load case, from the engine. A value that governs a "
+                                   "criterion is underlined; hover a criterion for its governing case."));
   }
-  cell (g, 0, 0, "quantity and criteria", "bw-col-head", 0);
+  cell (g, 0, 0, _("quantity and criteria"), "bw-col-head", 0);
   if (every)
     for (guint c = 0; c < self->results->n_cases; c++)
       {
@@ -628,8 +744,8 @@ results_rebuild (BwWindow *self)
       }
   else
     {
-      cell (g, 1, 0, "smallest", "bw-col-head", 1);
-      cell (g, 2, 0, "largest", "bw-col-head", 1);
+      cell (g, 1, 0, _("smallest"), "bw-col-head", 1);
+      cell (g, 2, 0, _("largest"), "bw-col-head", 1);
     }
   for (int q = 0; q < BW_N_QUANTITIES; q++)
     {
@@ -675,11 +791,12 @@ results_rebuild (BwWindow *self)
           if (ck->governing_case >= 0)
             {
               g_autofree char *cl = bw_load_case_label (&self->results->cases[ck->governing_case]);
-              g_autofree char *gv = bw_units_format (ck->value, info->kind, self->units);
+              g_autofree char *gv = bw_locale_format (ck->value, info->kind, self->units);
               g_autofree char *cc = case_compact (&self->results->cases[ck->governing_case]);
-              g_autofree char *line = g_strdup_printf ("governs: %s, %s", gv, cc);
+              g_autofree char *line = g_strdup_printf (_("governs: %s, %s"), gv, cc);
               GtkWidget *gl = gtk_label_new (line);
-              tip = g_strdup_printf ("%s (%s): %s in %s", ck->criterion->title,
+              /* TRANSLATORS: criterion (status): value in load case */
+              tip = g_strdup_printf (_("%s (%s): %s in %s"), ck->criterion->title,
                                      bw_check_status_name (ck->status), gv, cl);
               gtk_label_set_xalign (GTK_LABEL (gl), 0);
               gtk_label_set_wrap (GTK_LABEL (gl), TRUE);
@@ -704,19 +821,19 @@ results_rebuild (BwWindow *self)
           {
             const BwQuantitySet *s = &el->values[c];
             g_autofree char *v = bw_quantity_set_has (s, (BwQuantity) q)
-                                   ? bw_units_format (s->values[q], info->kind, self->units)
+                                   ? bw_locale_format (s->values[q], info->kind, self->units)
                                    : g_strdup ("—");
             cell (g, 1 + (int) c, row, v, GOVERNS ((int) c) ? "bw-governing" : NULL, 1);
           }
       else
         {
           const double vlo = el->values[lo].values[q], vhi = el->values[hi].values[q];
-          g_autofree char *a = bw_units_format (vlo, info->kind, self->units);
-          g_autofree char *b = bw_units_format (vhi, info->kind, self->units);
+          g_autofree char *a = bw_locale_format (vlo, info->kind, self->units);
+          g_autofree char *b = bw_locale_format (vhi, info->kind, self->units);
           g_autofree char *ca = case_compact (&self->results->cases[lo]);
           g_autofree char *cb = case_compact (&self->results->cases[hi]);
           gboolean same = vlo == vhi;
-          value_cell (g, 1, row, a, same ? "the same in every case" : ca, GOVERNS (lo));
+          value_cell (g, 1, row, a, same ? _("the same in every case") : ca, GOVERNS (lo));
           if (!same)
             value_cell (g, 2, row, b, cb, GOVERNS (hi));
         }
@@ -774,24 +891,24 @@ checks_rebuild (BwWindow *self)
     gtk_list_box_remove (self->checks_list, child);
   if (self->criteria == NULL)
     {
-      summary = g_strdup_printf ("No criteria set: %s", self->criteria_error ? self->criteria_error : "none chosen");
+      summary = g_strdup_printf (_("No criteria set: %s"), self->criteria_error ? self->criteria_error : _("none chosen"));
       gtk_label_set_text (self->checks_summary, summary);
-      gtk_label_set_text (self->counts_label, "no checks");
+      gtk_label_set_text (self->counts_label, _("no checks"));
       return;
     }
   if (self->checks == NULL)
     {
-      gtk_label_set_text (self->checks_summary, "No checks: the project does not evaluate.");
-      gtk_label_set_text (self->counts_label, "no checks");
+      gtk_label_set_text (self->checks_summary, _("No checks: the project does not evaluate."));
+      gtk_label_set_text (self->counts_label, _("no checks"));
       return;
     }
   bw_checks_count (self->checks, counts);
-  summary = g_strdup_printf ("Checked against %s: %u pass, %u warn, %u fail, %u not applicable",
+  summary = g_strdup_printf (_("Checked against %s: %u pass, %u warn, %u fail, %u not applicable"),
                              self->criteria->name, counts[BW_CHECK_PASS], counts[BW_CHECK_WARN],
                              counts[BW_CHECK_FAIL], counts[BW_CHECK_NOT_APPLICABLE]);
   gtk_label_set_text (self->checks_summary, summary);
   {
-    g_autofree char *c = g_strdup_printf ("%u pass · %u warn · %u fail", counts[BW_CHECK_PASS],
+    g_autofree char *c = g_strdup_printf (_("%u pass · %u warn · %u fail"), counts[BW_CHECK_PASS],
                                           counts[BW_CHECK_WARN], counts[BW_CHECK_FAIL]);
     gtk_label_set_text (self->counts_label, c);
   }
@@ -804,18 +921,18 @@ checks_rebuild (BwWindow *self)
       GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
       GtkWidget *text = gtk_box_new (GTK_ORIENTATION_VERTICAL, 1);
       GtkWidget *chip = gtk_label_new (bw_check_status_name (ck->status));
-      g_autofree char *head = g_strdup_printf ("%s — %s", cr->title, el ? el->label : "no element of that kind");
+      g_autofree char *head = g_strdup_printf ("%s — %s", cr->title, el ? el->label : _("no element of that kind"));
       g_autofree char *value = ck->status != BW_CHECK_NOT_APPLICABLE && el
-                                 ? bw_units_format (ck->value, bw_quantity_info (cr->quantity)->kind, self->units)
+                                 ? bw_locale_format (ck->value, bw_quantity_info (cr->quantity)->kind, self->units)
                                  : g_strdup ("—");
       g_autofree char *lim = limit_text (ck, self->units);
       g_autofree char *cl = ck->governing_case >= 0 ? bw_load_case_label (&self->results->cases[ck->governing_case])
-                                                    : g_strdup ("no load case");
-      g_autofree char *detail = g_strdup_printf ("value %s   limit %s   governing case: %s", value,
+                                                    : g_strdup (_("no load case"));
+      g_autofree char *detail = g_strdup_printf (_("value %s   limit %s   governing case: %s"), value,
                                                  lim[0] ? lim : "—", cl);
       g_autofree char *cite = g_strdup_printf ("%s, %s, %s%s", cr->document ? cr->document : "",
                                                cr->edition ? cr->edition : "", cr->clause ? cr->clause : "",
-                                               cr->provenance == BW_PROVENANCE_MEMORY ? " (from memory — verify)" : "");
+                                               cr->provenance == BW_PROVENANCE_MEMORY ? _(" (from memory — verify)") : "");
       g_autofree char *acc = g_strdup_printf ("%s: %s. %s", bw_check_status_name (ck->status), head, detail);
       GtkWidget *l;
 
@@ -882,6 +999,7 @@ update_actions (BwWindow *self)
   ENABLE ("duplicate-unit", has);
   ENABLE ("move-up", has && idx > 0);
   ENABLE ("move-down", has && idx + 1 < (parent ? parent->stages->len : t->units->len));
+  ENABLE ("autosize", _bw_autosize_target (self->project, self->selected_id) != NULL);
 #undef ENABLE
 }
 
@@ -896,9 +1014,16 @@ static void
 action_undo (GtkWidget *w, const char *name, GVariant *v)
 {
   BwWindow *self = BW_WINDOW (w);
+  GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (self));
 
   (void) name;
   (void) v;
+  /* Typing not yet applied is undone first, in the entry itself; the model is left alone. */
+  if (focus && GTK_IS_TEXT (focus) && _bw_window_entry_has_typing (self, focus))
+    {
+      gtk_widget_activate_action (focus, "text.undo", NULL);
+      return;
+    }
   if (bw_edit_stack_undo (self->stack, self->project))
     {
       evaluate (self);
@@ -953,7 +1078,7 @@ action_add_unit (GtkWidget *w, const char *name, GVariant *v)
       const BwProcessUnit *floc = parent ? parent : u;
       if (floc == NULL || floc->type != BW_PROCESS_FLOCCULATOR)
         {
-          _bw_window_set_status (self, "add a stage: select a flocculator or one of its stages first");
+          _bw_window_set_status (self, _("add a stage: select a flocculator or one of its stages first"));
           return;
         }
       if (!bw_window_do_edit (self, bw_edit_add_unit (NULL, floc->id, parent ? idx + 1 : floc->stages->len, type),
@@ -978,7 +1103,7 @@ action_add_unit (GtkWidget *w, const char *name, GVariant *v)
         }
       else if (train == NULL)
         {
-          _bw_window_set_status (self, "add a unit: the project has no train");
+          _bw_window_set_status (self, _("add a unit: the project has no train"));
           return;
         }
       if (!bw_window_do_edit (self, bw_edit_add_unit (train, NULL, pos, type), &error))
@@ -1061,6 +1186,17 @@ action_close (GtkWidget *w, const char *name, GVariant *v)
   gtk_window_close (GTK_WINDOW (w));
 }
 
+/* F1: the manual at the part for the page in view. */
+static void
+action_help (GtkWidget *w, const char *name, GVariant *v)
+{
+  BwWindow *self = BW_WINDOW (w);
+
+  (void) name;
+  (void) v;
+  bw_help_show (GTK_WINDOW (self), bw_help_topic_for_page (gtk_stack_get_visible_child_name (self->page_stack)));
+}
+
 void
 bw_window_show_page (BwWindow *self, const char *name)
 {
@@ -1069,12 +1205,25 @@ bw_window_show_page (BwWindow *self, const char *name)
     gtk_stack_set_visible_child_name (self->page_stack, name);
 }
 
+/* Tabs as wide as their titles, not all stretched alike: six of them fit at 1024 px. */
+static void
+compact_switcher (BwWindow *self)
+{
+  GtkLayoutManager *lm = gtk_widget_get_layout_manager (self->page_switcher);
+
+  if (GTK_IS_BOX_LAYOUT (lm))
+    gtk_box_layout_set_homogeneous (GTK_BOX_LAYOUT (lm), FALSE);
+  for (GtkWidget *b = gtk_widget_get_first_child (self->page_switcher); b; b = gtk_widget_get_next_sibling (b))
+    gtk_widget_set_hexpand (b, FALSE);
+}
+
 void
 bw_window_add_page (BwWindow *self, const char *name, const char *title, GtkWidget *child)
 {
   g_return_if_fail (BW_IS_WINDOW (self));
   g_return_if_fail (name != NULL && title != NULL && GTK_IS_WIDGET (child));
   gtk_stack_add_titled (self->page_stack, child, name, title);
+  compact_switcher (self);
 }
 
 const BwResults *
@@ -1153,7 +1302,7 @@ recent_rebuild (BwWindow *self)
       n++;
     }
   if (n == 0)
-    g_menu_append (self->recent_menu, "(no recent projects)", "app.open-recent-none");
+    g_menu_append (self->recent_menu, _("(no recent projects)"), "app.open-recent-none");
   g_list_free_full (items, (GDestroyNotify) gtk_recent_info_unref);
 }
 
@@ -1217,7 +1366,7 @@ bw_window_is_pristine (BwWindow *self)
 {
   g_return_val_if_fail (BW_IS_WINDOW (self), FALSE);
   return self->path == NULL && !bw_edit_stack_can_undo (self->stack) && !bw_edit_stack_is_modified (self->stack)
-         && g_strcmp0 (self->project->name, "Untitled plant") == 0;
+         && g_strcmp0 (self->project->name, _("Untitled plant")) == 0;
 }
 
 gboolean
@@ -1261,11 +1410,11 @@ blank_project (void)
 {
   BwProject *p = bw_project_new ();
 
-  p->name = g_strdup ("Untitled plant");
+  p->name = g_strdup (_("Untitled plant"));
   p->criteria = g_strdup (DEFAULT_CRITERIA);
   p->basis.flow_m3_s[BW_FLOW_MAXIMUM_DAY] = 0.1;
   p->basis.flows_given = 1u << BW_FLOW_MAXIMUM_DAY;
-  g_ptr_array_add (p->trains, bw_train_new ("train-1", "Train 1"));
+  g_ptr_array_add (p->trains, bw_train_new ("train-1", _("Train 1")));
   bw_project_generate_cases (p);
   return p;
 }
@@ -1333,6 +1482,7 @@ bw_window_class_init (BwWindowClass *klass)
   BIND (standby_spin);
   BIND (counts_grid);
   BIND (page_stack);
+  BIND (page_switcher);
   BIND (unit_heading);
   BIND (unit_type_label);
   BIND (editor_grid);
@@ -1361,7 +1511,10 @@ bw_window_class_init (BwWindowClass *klass)
   gtk_widget_class_install_action (widget_class, "win.move-up", NULL, action_move);
   gtk_widget_class_install_action (widget_class, "win.move-down", NULL, action_move);
   gtk_widget_class_install_action (widget_class, "win.page", "s", action_page);
+  gtk_widget_class_install_action (widget_class, "win.export-report", NULL, bw_report_dialog_action);
+  gtk_widget_class_install_action (widget_class, "win.help", NULL, action_help);
   _bw_window_files_class_init (widget_class);
+  _bw_autosize_class_init (widget_class);
 
   /* BwWindow::project-changed (gboolean structure): after every edit, undo, redo, open, new and
    * unit-system switch, once the results and checks are current. Pages added with
@@ -1397,7 +1550,7 @@ bw_window_init (BwWindow *self)
   self->fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
   self->basis_fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
   self->units = BW_UNIT_SYSTEM_SI;
-  gtk_label_set_text (self->caution_label, BW_CAUTION_TEXT);
+  gtk_label_set_text (self->caution_label, _(BW_CAUTION_TEXT));
 
   sc = GTK_SHORTCUT_CONTROLLER (gtk_shortcut_controller_new ());
   for (guint i = 0; i < G_N_ELEMENTS (nav_keys); i++)
@@ -1413,6 +1566,9 @@ bw_window_init (BwWindow *self)
   g_signal_connect_swapped (self->every_case_toggle, "toggled", G_CALLBACK (results_rebuild), self);
   g_signal_connect (self->checks_list, "row-activated", G_CALLBACK (check_activated), self);
   _bw_window_sketch_init (self);
+  bw_window_add_page (self, "chemistry", _("Chemistry"), bw_chem_view_new (self));
+  bw_window_add_page (self, "review", _("Review"), bw_review_view_new (self));
+  compact_switcher (self); /* the sketch page was re-added by _bw_window_sketch_init */
   g_signal_connect (gtk_recent_manager_get_default (), "changed", G_CALLBACK (recent_changed), self);
   recent_rebuild (self);
 
@@ -1433,6 +1589,19 @@ bw_window_new (BwApplication *app)
   self->units = bw_application_get_unit_system (app);
   g_signal_connect_object (app, "action-state-changed::unit-system", G_CALLBACK (unit_system_changed),
                            self, 0);
+  /* A new project is checked against the criteria set chosen last (when it is still found). */
+  {
+    g_autofree char *last = bw_application_dup_last_criteria (app);
+    g_autoptr (BwCriteriaSet) found = NULL;
+    if (last && g_strcmp0 (last, self->project->criteria) != 0
+        && (found = bw_criteria_set_open (last, NULL)) != NULL)
+      {
+        BwProject *p = blank_project ();
+        g_free (p->criteria);
+        p->criteria = g_steal_pointer (&last);
+        _bw_window_replace_project (self, p, NULL, TRUE);
+      }
+  }
   _bw_window_refresh_editor (self);
   _bw_window_refresh_basis (self);
   results_rebuild (self);

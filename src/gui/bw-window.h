@@ -36,6 +36,9 @@ const BwProject *bw_window_get_project (BwWindow *self);
 /* Applies EDIT (owned) through the undo stack; the project must still evaluate. */
 gboolean bw_window_do_edit (BwWindow *self, BwEdit *edit, GError **error);
 
+/* Moves unit (or stage) ID to the place of TARGET_ID in the same train (or flocculator), as
+ * one undoable edit: what dropping a dragged navigator row on another does. */
+gboolean bw_window_move_unit_to (BwWindow *self, const char *id, const char *target_id, GError **error);
 /* Selects a unit or stage in the navigator (and the editor follows). */
 gboolean bw_window_select_unit (BwWindow *self, const char *id);
 const char *bw_window_get_selected_id (BwWindow *self);
@@ -46,7 +49,8 @@ void bw_window_show_page (BwWindow *self, const char *name);
  * button) and the label that shows its error; "name" is the unit's name entry. Basis fields are
  * "flow:maximum-day", "temperature:coldest", "raw:turbidity", "raw:alkalinity", "raw:ph";
  * "parallel" and "standby" are the navigator's spin buttons, "every-case" the results toggle,
- * "criteria" the criteria-set dropdown, "case:N" the check button of load case N. */
+ * "criteria" the criteria-set dropdown, "case:N" the check button of load case N,
+ * "sketch-view" the sketch page's view dropdown and "sketch-area" its drawing area. */
 GtkWidget *bw_window_get_field_widget (BwWindow *self, const char *field_id);
 GtkWidget *bw_window_get_field_error (BwWindow *self, const char *field_id);
 

@@ -337,6 +337,164 @@ read_jar_test (xmlNode *node, BwProject *p, const char *path, GError **error)
   return TRUE;
 }
 
+/* The reviewer's record: the tolerance and the stated values with their comments. */
+static gboolean
+read_review (xmlNode *node, BwProject *p, const char *path, GError **error)
+{
+  for (xmlNode *k = node->children; k; k = k->next)
+    {
+      if (bw_xml_is (k, NS, "tolerance"))
+        {
+          if (!read_quantity (k, BW_KIND_FRACTION, "review tolerance", &p->review_tolerance, path, error))
+            return FALSE;
+        }
+      else if (bw_xml_is (k, NS, "stated"))
+        {
+          g_autofree char *qname = bw_xml_prop (k, "quantity");
+          g_autofree char *cas = bw_xml_prop (k, "case");
+          BwStated *st = g_new0 (BwStated, 1);
+          gboolean have_value = FALSE;
+
+          g_ptr_array_add (p->stated, st);
+          st->line = (guint) MAX (0, bw_xml_line (k));
+          st->element = bw_xml_prop (k, "element");
+          if (st->element == NULL || st->element[0] == '\0')
+            return fail (error, path, k, "stated value: element: empty");
+          if (!bw_quantity_from_name (qname, &st->quantity))
+            return fail (error, path, k, "stated value %s: quantity: '%s' is not one Basinwright computes",
+                         st->element, qname);
+          if (g_strcmp0 (cas, "max") == 0)
+            st->which = BW_STATED_MAXIMUM;
+          else if (g_strcmp0 (cas, "min") == 0)
+            st->which = BW_STATED_MINIMUM;
+          else if (bw_load_case_parse_id (cas, &st->load_case))
+            st->which = BW_STATED_CASE;
+          else
+            return fail (error, path, k, "stated value %s: case: '%s' is not max, min or a load case "
+                         "such as maximum-day/coldest/all-in-service", st->element, cas);
+          for (xmlNode *v = k->children; v; v = v->next)
+            if (bw_xml_is (v, NS, "value"))
+              {
+                g_autofree char *what = g_strdup_printf ("stated value %s %s", st->element, qname);
+                if (!read_quantity (v, bw_quantity_info (st->quantity)->kind, what, &st->value, path,
+                                    error))
+                  return FALSE;
+                have_value = TRUE;
+              }
+            else if (bw_xml_is (v, NS, "comment"))
+              {
+                /* Kept exactly as typed: not stripped. */
+                xmlChar *t = xmlNodeGetContent (v);
+                g_free (st->comment);
+                st->comment = g_strdup (t ? (const char *) t : "");
+                xmlFree (t);
+              }
+          if (!have_value)
+            return fail (error, path, k, "stated value %s %s: value: missing", st->element, qname);
+        }
+    }
+  return TRUE;
+}
+
+/* A list of finite numbers separated by white space, at most MAX of them. */
+static gboolean
+read_number_list (xmlNode *node, const char *what, double *out, guint max, guint *n,
+                  const char *path, GError **error)
+{
+  g_autofree char *text = text_of (node);
+  g_auto (GStrv) words = g_strsplit_set (text, " \t\r\n", -1);
+
+  *n = 0;
+  for (guint i = 0; words[i]; i++)
+    {
+      char *end = NULL;
+      double v;
+      if (words[i][0] == '\0')
+        continue;
+      if (*n >= max)
+        return fail (error, path, node, "%s: more than %u values", what, max);
+      v = g_ascii_strtod (words[i], &end);
+      if (end == words[i] || *end != '\0' || !isfinite (v))
+        return fail (error, path, node, "%s: '%s' is not a finite number", what, words[i]);
+      out[(*n)++] = v;
+    }
+  return TRUE;
+}
+
+static gboolean
+read_column_test (xmlNode *node, BwProject *p, const char *path, GError **error)
+{
+  g_autofree char *id = bw_xml_prop (node, "id");
+  g_autofree char *name = bw_xml_prop (node, "name");
+  g_autofree char *kind = bw_xml_prop (node, "readings");
+  g_autofree char *applies = bw_xml_prop (node, "applies-to");
+  BwColumnTestRecord *r = bw_column_test_record_new (id, name);
+  gboolean have_times = FALSE;
+
+  g_ptr_array_add (p->column_tests, r);
+  if (kind == NULL || g_strcmp0 (kind, "removal") == 0)
+    r->kind = BW_COLUMN_READING_REMOVAL;
+  else if (g_strcmp0 (kind, "concentration") == 0)
+    r->kind = BW_COLUMN_READING_CONCENTRATION;
+  else
+    return fail (error, path, node, "column test %s: readings: '%s' is not removal or concentration",
+                 id, kind);
+  if (applies)
+    {
+      g_auto (GStrv) ids = g_strsplit_set (applies, " \t\r\n", -1);
+      for (guint i = 0; ids[i]; i++)
+        if (ids[i][0])
+          g_ptr_array_add (r->units, g_strdup (ids[i]));
+    }
+  for (xmlNode *k = node->children; k; k = k->next)
+    {
+      if (bw_xml_is (k, NS, "initial-concentration"))
+        {
+          if (!read_quantity (k, BW_KIND_CONCENTRATION, "initial concentration", &r->initial_kg_m3,
+                              path, error))
+            return FALSE;
+        }
+      else if (bw_xml_is (k, NS, "times"))
+        {
+          g_autofree char *unit_name = bw_xml_prop (k, "unit");
+          const BwUnit *unit = bw_units_si_unit (BW_KIND_TIME);
+          g_autoptr (GError) local = NULL;
+          g_autofree char *what = g_strdup_printf ("column test %s: times", id);
+          if (unit_name && (unit = bw_unit_lookup (unit_name, BW_KIND_TIME, what, &local)) == NULL)
+            return fail (error, path, k, "%s", local->message);
+          if (!read_number_list (k, what, r->time_s, BW_COLUMN_MAX_TIMES, &r->n_times, path, error))
+            return FALSE;
+          for (guint i = 0; i < r->n_times; i++)
+            r->time_s[i] = bw_unit_to_si (unit, r->time_s[i]);
+          have_times = TRUE;
+        }
+    }
+  if (!have_times)
+    return fail (error, path, node, "column test %s: times: missing", id);
+  for (xmlNode *k = node->children; k; k = k->next)
+    if (bw_xml_is (k, NS, "port"))
+      {
+        g_autofree char *depth = bw_xml_prop (k, "depth");
+        g_autofree char *what = g_strdup_printf ("column test %s: port at %s m", id, depth);
+        char *end = NULL;
+        double d;
+        guint n = 0;
+        if (r->n_depths >= BW_COLUMN_MAX_DEPTHS)
+          return fail (error, path, k, "column test %s: more than %d ports", id, BW_COLUMN_MAX_DEPTHS);
+        d = depth ? g_ascii_strtod (depth, &end) : 0;
+        if (depth == NULL || end == depth || *end != '\0' || !isfinite (d))
+          return fail (error, path, k, "column test %s: port: depth='%s' is not a finite number", id,
+                       depth ? depth : "");
+        if (!read_number_list (k, what, r->reading[r->n_depths], BW_COLUMN_MAX_TIMES, &n, path, error))
+          return FALSE;
+        if (n != r->n_times)
+          return fail (error, path, k, "%s: %u readings where the test has %u sampling times", what, n,
+                       r->n_times);
+        r->depth_m[r->n_depths++] = d;
+      }
+  return TRUE;
+}
+
 static BwProject *
 read_project (xmlDoc *doc, const char *path, GError **error)
 {
@@ -389,6 +547,16 @@ read_project (xmlDoc *doc, const char *path, GError **error)
       else if (bw_xml_is (k, NS, "jar-test"))
         {
           if (!read_jar_test (k, p, path, error))
+            return NULL;
+        }
+      else if (bw_xml_is (k, NS, "column-test"))
+        {
+          if (!read_column_test (k, p, path, error))
+            return NULL;
+        }
+      else if (bw_xml_is (k, NS, "review"))
+        {
+          if (!read_review (k, p, path, error))
             return NULL;
         }
       else if (bw_xml_is (k, NS, "load-cases"))
@@ -578,6 +746,101 @@ write_unit (GString *s, const BwProcessUnit *u, gboolean stage, const char *inde
   g_string_append_printf (s, "%s</%s>\n", indent, stage ? "stage" : "unit");
 }
 
+/* Element text kept exact: a carriage return is written as a reference, or XML's end-of-line
+ * handling would turn it into a line feed. */
+static void
+esc_exact (GString *s, const char *text)
+{
+  g_auto (GStrv) parts = g_strsplit (text ? text : "", "\r", -1);
+  for (guint i = 0; parts[i]; i++)
+    {
+      if (i > 0)
+        g_string_append (s, "&#13;");
+      esc (s, parts[i]);
+    }
+}
+
+static void
+write_column_test (GString *s, const BwColumnTestRecord *r)
+{
+  g_string_append (s, "  <column-test id=\"");
+  esc (s, r->id);
+  g_string_append_c (s, '"');
+  if (r->name)
+    {
+      g_string_append (s, " name=\"");
+      esc (s, r->name);
+      g_string_append_c (s, '"');
+    }
+  g_string_append_printf (s, " readings=\"%s\"",
+                          r->kind == BW_COLUMN_READING_CONCENTRATION ? "concentration" : "removal");
+  if (r->units->len > 0)
+    {
+      g_string_append (s, " applies-to=\"");
+      for (guint i = 0; i < r->units->len; i++)
+        {
+          if (i > 0)
+            g_string_append_c (s, ' ');
+          esc (s, g_ptr_array_index (r->units, i));
+        }
+      g_string_append_c (s, '"');
+    }
+  g_string_append (s, ">\n");
+  if (r->initial_kg_m3 > 0)
+    write_quantity (s, "    ", "initial-concentration", NULL, r->initial_kg_m3, BW_KIND_CONCENTRATION);
+  g_string_append (s, "    <times unit=\"s\">");
+  for (guint k = 0; k < r->n_times; k++)
+    {
+      if (k > 0)
+        g_string_append_c (s, ' ');
+      number (s, r->time_s[k]);
+    }
+  g_string_append (s, "</times>\n");
+  for (guint j = 0; j < r->n_depths; j++)
+    {
+      g_string_append (s, "    <port depth=\"");
+      number (s, r->depth_m[j]);
+      g_string_append (s, "\">");
+      for (guint k = 0; k < r->n_times; k++)
+        {
+          if (k > 0)
+            g_string_append_c (s, ' ');
+          number (s, r->reading[j][k]);
+        }
+      g_string_append (s, "</port>\n");
+    }
+  g_string_append (s, "  </column-test>\n");
+}
+
+static void
+write_review (GString *s, const BwProject *p)
+{
+  if (p->stated->len == 0 && p->review_tolerance == BW_REVIEW_TOLERANCE_DEFAULT)
+    return;
+  g_string_append (s, "  <review>\n");
+  write_quantity (s, "    ", "tolerance", NULL, p->review_tolerance, BW_KIND_FRACTION);
+  for (guint i = 0; i < p->stated->len; i++)
+    {
+      const BwStated *st = g_ptr_array_index (p->stated, i);
+      g_autofree char *cas = st->which == BW_STATED_MAXIMUM ? g_strdup ("max")
+                             : st->which == BW_STATED_MINIMUM ? g_strdup ("min")
+                             : bw_load_case_id (&st->load_case);
+      g_string_append (s, "    <stated element=\"");
+      esc (s, st->element);
+      g_string_append_printf (s, "\" quantity=\"%s\" case=\"%s\">\n", bw_quantity_name (st->quantity),
+                              cas);
+      write_quantity (s, "      ", "value", NULL, st->value, bw_quantity_info (st->quantity)->kind);
+      if (st->comment)
+        {
+          g_string_append (s, "      <comment>");
+          esc_exact (s, st->comment);
+          g_string_append (s, "</comment>\n");
+        }
+      g_string_append (s, "    </stated>\n");
+    }
+  g_string_append (s, "  </review>\n");
+}
+
 char *
 bw_project_to_xml (const BwProject *p)
 {
@@ -691,6 +954,8 @@ bw_project_to_xml (const BwProject *p)
         }
       g_string_append (s, "  </jar-test>\n");
     }
+  for (guint i = 0; i < p->column_tests->len; i++)
+    write_column_test (s, g_ptr_array_index (p->column_tests, i));
   g_string_append (s, "  <load-cases>\n");
   for (guint i = 0; i < p->cases->len; i++)
     {
@@ -712,6 +977,7 @@ bw_project_to_xml (const BwProject *p)
         write_unit (s, g_ptr_array_index (t->units, k), FALSE, "    ");
       g_string_append (s, "  </train>\n");
     }
+  write_review (s, p);
   for (guint i = 0; i < p->foreign->len; i++)
     g_string_append_printf (s, "  %s\n", (const char *) g_ptr_array_index (p->foreign, i));
   g_string_append (s, "</project>\n");

@@ -64,6 +64,51 @@ def review_failing_project():
     assert "fail" in out and "discrepancy" in out, out
 tap.check("review of the non-compliant revision exits 1", review_failing_project)
 
+def review_stored_record():
+    # No --stated: the non-compliant example's own review record (4 values, tolerance 2 %).
+    code, out, err = run("review", bad, "--json")
+    assert code == 1, (code, err)   # required criteria fail, as with a CSV
+    d = json.loads(out)
+    assert d["tolerance_fraction"] == 0.02 and d["summary"]["stated"] == 4, d
+    found = {(f["element"], f["quantity"]): f for f in d["findings"] if "quantity" in f}
+    sor = found[("north-sed", "overflow_rate")]
+    # 4.2 m/h stated against 0.35/3 m3/s over 30 m x 2.8 m (derived from the example's inputs).
+    assert sor["kind"] == "discrepancy" and abs(sor["stated_si"] / (4.2 / 3600) - 1) < 1e-10, sor
+    assert abs(sor["computed_si"] / (0.35 / 3 / 84.0) - 1) < 1e-10, sor  # JSON has 12 digits
+    assert sor["comment"].startswith("Sheet S-2 divides by a 36 m basin"), sor
+    # 15.43 min against 925.7 s (derived: 3 m x 4 m x 9 m over 0.35/3 m3/s) agrees within 2 %.
+    floc = found[("north-floc", "detention")]
+    assert floc["kind"] == "agrees" and floc["comment"] == "Agrees with the calculation sheet.", floc
+    # A stated value without a comment has no comment key.
+    assert "comment" not in found[("north-rm", "G")], found[("north-rm", "G")]
+    assert sorted(k for k, f in found.items() if f["kind"] == "discrepancy") == [
+        ("north-rm", "G"), ("north-sed", "overflow_rate"), ("south-sed", "side_water_depth")], found
+    # --tolerance overrides the stored one: at 25 % the 16 % overflow and 20 % depth errors pass and
+    # only the 29 % G error remains (1000 stated against 1415 1/s computed, derived).
+    d = json.loads(run("review", bad, "--json", "--tolerance", "25%")[1])
+    assert d["tolerance_fraction"] == 0.25, d
+    assert [(f["element"], f["quantity"]) for f in d["findings"] if f["kind"] == "discrepancy"] == [
+        ("north-rm", "G")], d["findings"]
+    # --stated replaces the stored values, and its default tolerance is then still the project's.
+    d = json.loads(run("review", bad, "--json", "--stated", stated)[1])
+    assert d["summary"]["stated"] == 10, d["summary"]
+tap.check("review without --stated uses the project's review record", review_stored_record)
+
+def review_stored_pdf():
+    import shutil
+    import subprocess
+    with tempfile.TemporaryDirectory() as tmp:
+        out = os.path.join(tmp, "findings.pdf")
+        code, _, err = run("review", bad, "-o", out)
+        assert code == 1, (code, err)
+        assert open(out, "rb").read(4) == b"%PDF"
+        if shutil.which("pdftotext"):
+            text = subprocess.run(["pdftotext", out, "-"], capture_output=True, text=True).stdout
+            text = " ".join(text.split())
+            for needle in ("Reviewer's comment", "Designer to revise", "which governs?", "licensed professional"):
+                assert needle in text, needle
+tap.check("review -o shows the stored comments in the findings PDF", review_stored_pdf)
+
 def export_roundtrip():
     with tempfile.TemporaryDirectory() as tmp:
         code, out, err = run("export", demo, "--csv", tmp)
@@ -127,7 +172,7 @@ with tempfile.TemporaryDirectory() as tmp:
     ]:
         expect_usage_error(tap, ["review", demo, "--stated", f(name, text)], needle, f"review rejects {name}")
     expect_usage_error(tap, ["export", demo, "--csv", "/proc/no-such-dir/x"], "--csv")
-expect_usage_error(tap, ["review", demo], "--stated is required")
+expect_usage_error(tap, ["review", demo], "holds no stated values; give --stated FILE.csv")
 expect_usage_error(tap, ["review", demo, "--stated", stated, "--tolerance", "0"], "--tolerance")
 expect_usage_error(tap, ["diff", demo], "missing OLD NEW")
 

@@ -4,11 +4,13 @@
 #include "config.h"
 
 #include <glib/gstdio.h>
+#include <math.h>
 #include <string.h>
 #include <sys/stat.h>
 #include <unistd.h>
 
 #include "bw-test.h"
+#include "engine/bw-error.h"
 #include "engine/bw-evaluate.h"
 #include "io/bw-criteria-xml.h"
 #include "io/bw-project-xml.h"
@@ -271,6 +273,249 @@ START_TEST (test_project_hostile)
 }
 END_TEST
 
+/* --- the review record and settling-column tests --- */
+
+START_TEST (test_project_review_roundtrip)
+{
+  /* Comments are text a reviewer types: leading and trailing blanks, tabs, CR LF line ends,
+   * markup characters and non-ASCII letters must all come back byte for byte. */
+  static const char *const comments[] = {
+    "  Sheet S-2 <rev. B> & \"C\": 'check'\t\r\nsecond line, ünïcödé  ",
+    "   ",
+    "",
+    "\r",
+  };
+  g_autofree char *path = example ("marrowby-demo.bwproj");
+  g_autofree char *saved = g_build_filename (tmpdir, "review.bwproj", NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwProject) a = bw_project_load (path, &error);
+  g_autoptr (BwProject) b = NULL;
+  g_autoptr (BwProject) c = NULL;
+  g_autofree char *xml = NULL;
+
+  ck_assert_msg (a != NULL, "%s", error ? error->message : "");
+  /* A project without a review record writes none. */
+  ck_assert_uint_eq (a->stated->len, 0);
+  ck_assert (a->review_tolerance == BW_REVIEW_TOLERANCE_DEFAULT);
+  xml = bw_project_to_xml (a);
+  ck_assert_ptr_null (strstr (xml, "<review"));
+  a->review_tolerance = 0.035;
+  for (guint i = 0; i < G_N_ELEMENTS (comments); i++)
+    {
+      BwStated *st = g_new0 (BwStated, 1);
+      st->element = g_strdup (i % 2 ? "north-rm" : "north-sed");
+      st->quantity = i % 2 ? BW_Q_G : BW_Q_OVERFLOW_RATE;
+      st->which = i == 0 ? BW_STATED_CASE : i == 1 ? BW_STATED_MAXIMUM : BW_STATED_MINIMUM;
+      ck_assert (bw_load_case_parse_id ("peak-hour/warmest/firm", &st->load_case));
+      st->value = 1.0 / 3.0 + i; /* not a short decimal: the 17 digits must carry it */
+      st->comment = g_strdup (comments[i]);
+      g_ptr_array_add (a->stated, st);
+    }
+  {
+    /* And one without a comment. */
+    BwStated *st = bw_stated_copy (g_ptr_array_index (a->stated, 0));
+    g_clear_pointer (&st->comment, g_free);
+    g_ptr_array_add (a->stated, st);
+  }
+  ck_assert_msg (bw_project_save (a, saved, &error), "%s", error ? error->message : "");
+  b = bw_project_load (saved, &error);
+  ck_assert_msg (b != NULL, "%s", error ? error->message : "");
+  ck_assert_msg (bw_project_equal (a, b), "the review record changed in a round trip");
+  ck_assert_uint_eq (b->stated->len, G_N_ELEMENTS (comments) + 1);
+  for (guint i = 0; i < G_N_ELEMENTS (comments); i++)
+    {
+      const BwStated *st = g_ptr_array_index (b->stated, i);
+      ck_assert_str_eq (st->comment, comments[i]);
+      ck_assert (st->value == 1.0 / 3.0 + i);
+      ck_assert_uint_gt (st->line, 0); /* where it stands in the file, for messages */
+    }
+  ck_assert_ptr_null (((BwStated *) g_ptr_array_index (b->stated, G_N_ELEMENTS (comments)))->comment);
+  ck_assert (((BwStated *) g_ptr_array_index (b->stated, 0))->load_case.flow == BW_FLOW_PEAK_HOUR);
+  ck_assert (b->review_tolerance == 0.035);
+  /* Copy and equality see the record: a changed comment or tolerance is a different model. */
+  c = bw_project_copy (b);
+  ck_assert (bw_project_equal (b, c));
+  g_free (((BwStated *) g_ptr_array_index (c->stated, 2))->comment);
+  ((BwStated *) g_ptr_array_index (c->stated, 2))->comment = g_strdup ("x");
+  ck_assert (!bw_project_equal (b, c));
+  g_clear_pointer (&c, bw_project_free);
+  c = bw_project_copy (b);
+  c->review_tolerance = 0.05;
+  ck_assert (!bw_project_equal (b, c));
+}
+END_TEST
+
+START_TEST (test_project_column_test_roundtrip)
+{
+  g_autofree char *path = example ("marrowby-demo.bwproj");
+  g_autofree char *saved = g_build_filename (tmpdir, "column.bwproj", NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwProject) a = bw_project_load (path, &error);
+  g_autoptr (BwProject) b = NULL;
+  g_autoptr (BwProject) c = NULL;
+  const BwColumnTestRecord *r;
+  BwColumnTestRecord *k;
+  BwSettlingColumn col;
+
+  ck_assert_msg (a != NULL, "%s", error ? error->message : "");
+  /* The demo's invented column test, as typed in data/examples/marrowby-demo.bwproj. */
+  ck_assert_uint_eq (a->column_tests->len, 1);
+  r = bw_project_column_test_for (a, "north-sed");
+  ck_assert_ptr_nonnull (r);
+  ck_assert_ptr_null (bw_project_column_test_for (a, "south-sed"));
+  ck_assert_str_eq (r->id, "ct-2026-11");
+  ck_assert_uint_eq (r->n_depths, 5);
+  ck_assert_uint_eq (r->n_times, 7);
+  bw_assert_rel (r->time_s[6], 7200.0, 1e-15); /* 120 min */
+  bw_assert_rel (r->depth_m[4], 3.0, 1e-15);
+  bw_assert_rel (r->reading[4][6], 0.74, 1e-15);
+  bw_assert_rel (r->initial_kg_m3, 0.042, 1e-12); /* 42 mg/L */
+  ck_assert (bw_column_test_record_column (r, &col, &error));
+  bw_assert_rel (col.removal[0][0], 0.38, 1e-15);
+
+  /* A second test read as concentrations: R = 1 - C/C0 (derived). */
+  k = bw_column_test_record_new ("ct-conc", NULL);
+  k->kind = BW_COLUMN_READING_CONCENTRATION;
+  k->initial_kg_m3 = 0.05;
+  k->n_depths = 2;
+  k->n_times = 3;
+  k->depth_m[0] = 1.0 / 3.0;
+  k->depth_m[1] = 2.0;
+  k->time_s[0] = 300;
+  k->time_s[1] = 900;
+  k->time_s[2] = 1800;
+  for (guint j = 0; j < 2; j++)
+    for (guint t = 0; t < 3; t++)
+      k->reading[j][t] = 0.05 - 0.01 * (t + 1) + 0.004 * j;
+  g_ptr_array_add (a->column_tests, k);
+  ck_assert_msg (bw_column_test_record_column (k, &col, &error), "%s", error ? error->message : "");
+  bw_assert_rel (col.removal[1][0], 1.0 - 0.044 / 0.05, 1e-12); /* derived: 0.12 */
+  ck_assert_msg (bw_project_save (a, saved, &error), "%s", error ? error->message : "");
+  b = bw_project_load (saved, &error);
+  ck_assert_msg (b != NULL, "%s", error ? error->message : "");
+  ck_assert_msg (bw_project_equal (a, b), "a column test changed in a round trip");
+  ck_assert_uint_eq (((BwColumnTestRecord *) g_ptr_array_index (b->column_tests, 1))->units->len, 0);
+  c = bw_project_copy (b);
+  ck_assert (bw_project_equal (b, c));
+  ((BwColumnTestRecord *) g_ptr_array_index (c->column_tests, 0))->reading[2][3] += 1e-9;
+  ck_assert (!bw_project_equal (b, c));
+}
+END_TEST
+
+typedef struct
+{
+  const char *file;    /* an example ... */
+  const char *find;    /* ... in which this text ... */
+  const char *replace; /* ... is replaced by this */
+  int code;
+  const char *needle;  /* the message must say this */
+} RecordCase;
+
+#define DEMO "marrowby-demo.bwproj"
+#define NONC "marrowby-noncompliant.bwproj"
+static const RecordCase bad_records[] = {
+  { NONC, "<tolerance>0.02</tolerance>", "<tolerance>0</tolerance>", BW_IO_ERROR_INVALID, "review tolerance" },
+  { NONC, "<tolerance>0.02</tolerance>", "<tolerance>1.5</tolerance>", BW_IO_ERROR_INVALID, "review tolerance" },
+  { NONC, "<tolerance>0.02</tolerance>", "<tolerance>NaN</tolerance>", BW_IO_ERROR_INVALID, "review tolerance" },
+  { NONC, "quantity=\"side_water_depth\"", "quantity=\"depth_of_water\"", BW_IO_ERROR_INVALID,
+    "quantity: 'depth_of_water'" },
+  { NONC, "quantity=\"G\" case=\"max\"", "quantity=\"G\" case=\"largest\"", BW_IO_ERROR_INVALID,
+    "case: 'largest'" },
+  { NONC, "<value unit=\"1/s\">1000</value>", "<value unit=\"1/s\">lots</value>", BW_IO_ERROR_INVALID,
+    "not a finite number" },
+  { NONC, "<value unit=\"1/s\">1000</value>", "<value unit=\"1/s\">1e999</value>", BW_IO_ERROR_INVALID,
+    "stated value north-rm G" },
+  { NONC, "<value unit=\"m\">3.0</value>", "<value unit=\"kg\">3.0</value>", BW_IO_ERROR_INVALID,
+    "unit of mass" },
+  { NONC, "<value unit=\"1/s\">1000</value>", "", BW_IO_ERROR_INVALID, ":" }, /* schema: value missing */
+  { NONC, "element=\"north-rm\" quantity=\"G\"", "element=\"\" quantity=\"G\"", BW_IO_ERROR_INVALID,
+    "element: empty" },
+  { NONC, "Agrees with the calculation sheet.", "Agrees\x01", BW_IO_ERROR_MALFORMED, ":" },
+  { DEMO, "<port depth=\"1.2\">0.24 0.42 0.55 0.66 0.73 0.81 0.86</port>",
+    "<port depth=\"1.2\">0.24 0.42 0.55 0.66 0.73 0.81</port>", BW_IO_ERROR_INVALID,
+    "6 readings where the test has 7 sampling times" },
+  { DEMO, "<port depth=\"1.2\">0.24", "<port depth=\"1.2\">1.24", BW_IO_ERROR_INVALID,
+    "column test ct-2026-11: removal: 1.24" },
+  { DEMO, "0.55 0.66 0.73 0.81 0.86", "0.55 0.36 0.73 0.81 0.86", BW_IO_ERROR_INVALID, "cannot fall with time" },
+  { DEMO, "<port depth=\"1.8\">", "<port depth=\"1.1\">", BW_IO_ERROR_INVALID, "from the surface down" },
+  { DEMO, "<port depth=\"1.8\">", "<port depth=\"-1.8\">", BW_IO_ERROR_INVALID, "depths" },
+  { DEMO, "10 20 30 45 60 90 120", "10 20 30 45 60 90 NaN", BW_IO_ERROR_INVALID, ":" },
+  { DEMO, "10 20 30 45 60 90 120", "10 20 30 30 60 90 120", BW_IO_ERROR_INVALID, "times: reading 4" },
+  { DEMO, "<times unit=\"min\">", "<times unit=\"m\">", BW_IO_ERROR_INVALID, "column test ct-2026-11: times" },
+  /* An id of no unit (a basin removed since) is kept and applies to nothing. */
+  { DEMO, "applies-to=\"north-sed\"", "applies-to=\"north-sed west-sed\"", -1, "" },
+  { DEMO, "applies-to=\"north-sed\"", "applies-to=\"north-sed west-sed!\"", BW_IO_ERROR_INVALID, ":" },
+  { DEMO, "applies-to=\"north-sed\"", "applies-to=\"north-floc\"", BW_IO_ERROR_INVALID,
+    "not a settling basin" },
+  { DEMO, "applies-to=\"north-sed\"", "applies-to=\"east-sed\"", BW_IO_ERROR_INVALID,
+    "'east-sed' is a" }, /* a plate settler has no side water depth for the design point */
+  { DEMO, "readings=\"removal\"", "readings=\"turbidity\"", BW_IO_ERROR_INVALID, ":" }, /* schema */
+  { DEMO, "<initial-concentration unit=\"mg/L\">42</initial-concentration>", "", -1, "" }, /* optional */
+  { DEMO, "readings=\"removal\"", "readings=\"concentration\"", BW_IO_ERROR_INVALID,
+    "mg/L at depth 0.6 m and 10 min is not between 0 and the initial 42 mg/L" },
+};
+
+START_TEST (test_project_bad_records)
+{
+  const RecordCase *h = &bad_records[_i];
+  g_autofree char *path = example (h->file);
+  g_autofree char *text = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwProject) p = NULL;
+  GString *s;
+
+  ck_assert (g_file_get_contents (path, &text, NULL, NULL));
+  ck_assert_msg (strstr (text, h->find) != NULL, "fixture text '%s' not in %s", h->find, h->file);
+  s = g_string_new (text);
+  g_string_replace (s, h->find, h->replace, 1);
+  p = bw_project_load_memory (s->str, s->len, "marrowby-record.bwproj", &error);
+  g_string_free (s, TRUE);
+  if (h->code < 0)
+    {
+      ck_assert_msg (p != NULL, "case %d: %s", _i, error ? error->message : "");
+      return;
+    }
+  ck_assert_msg (p == NULL, "case %d (%s): loaded", _i, h->replace);
+  bw_assert_error (error, BW_IO_ERROR, h->code, h->needle);
+  ck_assert_msg (g_str_has_prefix (error->message, "marrowby-record.bwproj"),
+                 "case %d: the message does not name the file: %s", _i, error->message);
+}
+END_TEST
+
+START_TEST (test_project_validate_records)
+{
+  /* The same rules hold for a model edited in memory, before any save. */
+  g_autofree char *path = example ("marrowby-demo.bwproj");
+  g_autoptr (BwProject) p = bw_project_load (path, NULL);
+  g_autoptr (GError) error = NULL;
+  BwStated *st = g_new0 (BwStated, 1);
+
+  ck_assert_ptr_nonnull (p);
+  p->review_tolerance = 1.0; /* 100 % is the top of the range, and accepted */
+  ck_assert (bw_project_validate (p, NULL));
+  st->element = g_strdup ("north-sed");
+  st->quantity = BW_Q_OVERFLOW_RATE;
+  st->which = BW_STATED_MAXIMUM;
+  st->value = INFINITY;
+  g_ptr_array_add (p->stated, st);
+  ck_assert (!bw_project_validate (p, &error));
+  bw_assert_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "stated value 1 (north-sed overflow_rate)");
+  g_clear_error (&error);
+  st->value = 0.001;
+  st->comment = g_strdup ("bell\a");
+  ck_assert (!bw_project_validate (p, &error));
+  bw_assert_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "comment: holds the control character 0x07");
+  g_clear_error (&error);
+  g_free (st->comment);
+  st->comment = g_strdup ("fine\ttab");
+  ck_assert (bw_project_validate (p, NULL));
+  /* A column test id given twice. */
+  g_ptr_array_add (p->column_tests, bw_column_test_record_copy (g_ptr_array_index (p->column_tests, 0)));
+  ck_assert (!bw_project_validate (p, &error));
+  bw_assert_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "column test id: 'ct-2026-11'");
+}
+END_TEST
+
 START_TEST (test_project_size_limit)
 {
   const gsize n = BW_XML_MAX_BYTES + 10;
@@ -422,6 +667,10 @@ bw_test_suite (void)
   tcase_add_test (tc, test_project_equal_notices_changes);
   tcase_add_test (tc, test_project_foreign_elements_kept);
   tcase_add_loop_test (tc, test_project_hostile, 0, G_N_ELEMENTS (hostile));
+  tcase_add_test (tc, test_project_review_roundtrip);
+  tcase_add_test (tc, test_project_column_test_roundtrip);
+  tcase_add_loop_test (tc, test_project_bad_records, 0, G_N_ELEMENTS (bad_records));
+  tcase_add_test (tc, test_project_validate_records);
   tcase_add_test (tc, test_project_size_limit);
   tcase_add_test (tc, test_save_atomic_keeps_old_file);
   suite_add_tcase (s, tc);

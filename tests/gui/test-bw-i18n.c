@@ -1,0 +1,230 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* test-bw-i18n.c: the real window in Spanish (es_ES.UTF-8, catalogue from the build tree):
+ * labels from the .ui and from C code translated, results with a decimal comma, and a decimal
+ * comma typed into an entry read as the engine's point. */
+#include "config.h"
+
+#include <check.h>
+#include <glib/gi18n.h>
+#include <locale.h>
+#include <math.h>
+#include <string.h>
+
+#include "bw-gui-test.h"
+#include "engine/bw-project.h"
+#include "gui/bw-locale.h"
+
+static BwApplication *app;
+static char *tmpdir;
+
+static BwWindow *
+demo_window (void)
+{
+  g_autofree char *demo = bw_gui_test_demo_path ();
+  g_autoptr (GError) error = NULL;
+  BwWindow *w = bw_window_new (app);
+
+  ck_assert_msg (bw_window_open_path (w, demo, &error), "%s", error ? error->message : "");
+  gtk_window_present (GTK_WINDOW (w));
+  bw_gui_test_pump (50);
+  return w;
+}
+
+/* Hides W: the windows are destroyed with the application at the end. */
+static void
+close_window (BwWindow *w)
+{
+  gtk_widget_set_visible (GTK_WIDGET (w), FALSE);
+  bw_gui_test_pump (10);
+}
+
+/* The first label under ROOT whose text is TEXT (or starts with it when PREFIX). */
+static GtkWidget *
+find_label (GtkWidget *root, const char *text, gboolean prefix)
+{
+  if (GTK_IS_LABEL (root))
+    {
+      const char *t = gtk_label_get_text (GTK_LABEL (root));
+      if (prefix ? g_str_has_prefix (t, text) : g_strcmp0 (t, text) == 0)
+        return root;
+    }
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = find_label (c, text, prefix);
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+static GtkStack *
+find_stack (GtkWidget *root)
+{
+  if (GTK_IS_STACK (root) && gtk_stack_get_child_by_name (GTK_STACK (root), "unit"))
+    return GTK_STACK (root);
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkStack *s = find_stack (c);
+      if (s)
+        return s;
+    }
+  return NULL;
+}
+
+/* TRUE when TEXT holds a digit, a comma and a digit in a row ("56,00"). */
+static gboolean
+has_decimal_comma (const char *text)
+{
+  for (const char *p = text; p[0] && p[1] && p[2]; p++)
+    if (g_ascii_isdigit (p[0]) && p[1] == ',' && g_ascii_isdigit (p[2]))
+      return TRUE;
+  return FALSE;
+}
+
+START_TEST (test_spanish_strings_show)
+{
+  BwWindow *w = demo_window ();
+  GtkStack *stack = find_stack (GTK_WIDGET (w));
+  GtkWidget *caution;
+
+  /* A label from ui/bw-window.ui, through the template's translation domain (po/es.po). */
+  ck_assert_ptr_nonnull (find_label (GTK_WIDGET (w), "Planta, en el orden del flujo", FALSE));
+  ck_assert_ptr_null (find_label (GTK_WIDGET (w), "Plant, in flow order", FALSE));
+  /* The Unit page title (a .ui string) and the Results heading (set from C code). */
+  ck_assert_ptr_nonnull (stack);
+  ck_assert_str_eq (gtk_stack_page_get_title (gtk_stack_get_page (stack,
+                                                                  gtk_stack_get_child_by_name (stack, "unit"))),
+                    "Unidad");
+  bw_window_select_unit (w, "north-sed");
+  bw_gui_test_pump (5);
+  ck_assert_ptr_nonnull (find_label (GTK_WIDGET (w), "Resultados: ", TRUE));
+  /* The status line, with ngettext's plural (po/es.po). */
+  {
+    GtkWidget *s = NULL;
+    for (int n = 1; n < 200 && s == NULL; n++)
+      {
+        g_autofree char *want = g_strdup_printf ("%d casos de carga calculados · ", n);
+        s = find_label (GTK_WIDGET (w), want, TRUE);
+      }
+    ck_assert_msg (s != NULL, "no status line in Spanish");
+  }
+  /* The caution, translated faithfully and on screen (po/es.po). */
+  caution = find_label (GTK_WIDGET (w), "Ayuda preliminar de diseño. Todo resultado debe ser revisado "
+                        "y verificado por un ingeniero colegiado", TRUE);
+  ck_assert_ptr_nonnull (caution);
+  ck_assert (gtk_widget_get_mapped (caution));
+  ck_assert_str_eq (gtk_label_get_text (GTK_LABEL (caution)), _(BW_CAUTION_TEXT));
+  close_window (w);
+}
+END_TEST
+
+START_TEST (test_numbers_use_the_decimal_comma)
+{
+  BwWindow *w = demo_window ();
+  GtkWidget *e;
+  g_autofree char *results = NULL;
+  const BwProcessUnit *u;
+
+  ck_assert_str_eq (bw_locale_decimal_point (), ",");
+  bw_window_select_unit (w, "north-sed");
+  e = bw_window_get_field_widget (w, "length");
+  /* 56 m from the demo file, four significant figures (the engine's format), decimal comma. */
+  ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (e)), "56,00 m");
+  results = bw_window_dup_results_text (w);
+  ck_assert_msg (has_decimal_comma (results), "no decimal comma in the results: %s", results);
+  ck_assert_msg (strstr (results, "NaN") == NULL && strstr (results, "nan") == NULL, "%s", results);
+
+  /* Typed with the locale's comma: read as 1.5 m (derived: 1,5 in es_ES is one and a half). */
+  gtk_editable_set_text (GTK_EDITABLE (e), "1,5 m");
+  g_signal_emit_by_name (e, "activate");
+  bw_gui_test_pump (5);
+  u = bw_project_find_unit (bw_window_get_project (w), "north-sed", NULL);
+  ck_assert_ptr_nonnull (u);
+  ck_assert_double_eq_tol (bw_process_unit_get (u, "length"), 1.5, 1e-12);
+  ck_assert (!gtk_widget_has_css_class (e, "error"));
+  ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (e)), "1,500 m");
+  /* A point still reads as a decimal point there: 2.25 m (derived). */
+  gtk_editable_set_text (GTK_EDITABLE (e), "2.25 m");
+  g_signal_emit_by_name (e, "activate");
+  bw_gui_test_pump (5);
+  ck_assert_double_eq_tol (bw_process_unit_get (u, "length"), 2.25, 1e-12);
+  close_window (w);
+}
+END_TEST
+
+START_TEST (test_locale_helpers)
+{
+  char *s;
+
+  /* es_ES: only a point between digits changes; unit symbols and other text do not. */
+  s = bw_locale_localize_number ("1.2e-05 m²/s · 3.5 ft. 12");
+  ck_assert_str_eq (s, "1,2e-05 m²/s · 3,5 ft. 12");
+  g_free (s);
+  s = bw_locale_delocalize_number ("1,5 m");
+  ck_assert_str_eq (s, "1.5 m");
+  g_free (s);
+  s = bw_locale_delocalize_number ("12 kg, x,");
+  ck_assert_str_eq (s, "12 kg, x,");
+  g_free (s);
+  s = bw_locale_format (18.288, BW_KIND_LENGTH, BW_UNIT_SYSTEM_SI);
+  /* 60 ft = 18.288 m exactly (international foot), four significant figures. */
+  ck_assert_str_eq (s, "18,29 m");
+  g_free (s);
+
+  /* In the C locale nothing changes, in either direction. */
+  setlocale (LC_NUMERIC, "C");
+  s = bw_locale_localize_number ("1.5 m");
+  ck_assert_str_eq (s, "1.5 m");
+  g_free (s);
+  s = bw_locale_delocalize_number ("1,5 m");
+  ck_assert_str_eq (s, "1,5 m");
+  g_free (s);
+  setlocale (LC_NUMERIC, "");
+}
+END_TEST
+
+static Suite *
+i18n_suite (void)
+{
+  Suite *s = suite_create ("gui-i18n");
+  TCase *tc = tcase_create ("spanish");
+
+  tcase_set_timeout (tc, 60);
+  tcase_add_test (tc, test_spanish_strings_show);
+  tcase_add_test (tc, test_numbers_use_the_decimal_comma);
+  tcase_add_test (tc, test_locale_helpers);
+  suite_add_tcase (s, tc);
+  return s;
+}
+
+int
+main (void)
+{
+  SRunner *sr;
+  int failed;
+
+  tmpdir = bw_gui_test_private_env ();
+  /* The workbench's own start-up: locale from the environment (meson sets es_ES.UTF-8, LOCPATH
+   * and BASINWRIGHT_LOCALEDIR to the build tree), then the gettext domain. */
+  bw_locale_init ();
+  if (g_strcmp0 (_("Untitled plant"), "Planta sin título") != 0)
+    {
+      g_printerr ("the Spanish catalogue is not found (LANGUAGE=%s LC_ALL=%s LOCPATH=%s "
+                  "BASINWRIGHT_LOCALEDIR=%s)\n", g_getenv ("LANGUAGE"), g_getenv ("LC_ALL"),
+                  g_getenv ("LOCPATH"), g_getenv ("BASINWRIGHT_LOCALEDIR"));
+      return 1;
+    }
+  if (!gtk_init_check ())
+    {
+      g_printerr ("no display: skipping the GUI tests\n");
+      return 77;
+    }
+  app = bw_gui_test_app ();
+  sr = srunner_create (i18n_suite ());
+  srunner_set_fork_status (sr, CK_NOFORK);
+  srunner_run_all (sr, CK_NORMAL);
+  failed = srunner_ntests_failed (sr);
+  srunner_free (sr);
+  g_object_unref (app);
+  return failed == 0 ? 0 : 1;
+}
