@@ -11,6 +11,7 @@
 
 #include <cairo-pdf.h>
 #include <errno.h>
+#include <glib/gi18n-lib.h>
 #include <glib/gstdio.h>
 #include <math.h>
 #include <pango/pangocairo.h>
@@ -19,16 +20,17 @@
 
 #include "draw/bw-chart.h"
 #include "draw/bw-charts.h"
+#include "draw/bw-labels.h"
 #include "draw/bw-sketch.h"
 #include "draw/bw-style.h"
 #include "engine/bw-review.h"
 
 #define CAUTION_TEXT                                                                              \
-  "These results are a preliminary design aid. They must be checked and verified by a licensed " \
+  N_("These results are a preliminary design aid. They must be checked and verified by a licensed " \
   "professional engineer before they are used for design or construction. Local codes, the "     \
-  "design standard in force and the approving authority govern over anything this report states."
+  "design standard in force and the approving authority govern over anything this report states.")
 
-#define FOOTER_CAUTION "Preliminary design aid: to be verified by a licensed professional engineer"
+#define FOOTER_CAUTION N_("Preliminary design aid: to be verified by a licensed professional engineer")
 
 /* ------------------------------------------------------------------------------------------ */
 /* Paper */
@@ -220,9 +222,9 @@ doc_page (Doc *d, gboolean cover)
     cairo_show_page (d->cr);
   d->page++;
   if (d->total > 0)
-    num = g_strdup_printf ("page %d of %d", d->page, d->total);
+    num = g_strdup_printf (_("page %d of %d"), d->page, d->total);
   else
-    num = g_strdup_printf ("page %d of %d", d->page, d->page);
+    num = g_strdup_printf (_("page %d of %d"), d->page, d->page);
 
   if (!cover)
     {
@@ -233,7 +235,7 @@ doc_page (Doc *d, gboolean cover)
   hrule (d, ink_y - 4, 0.5, d->style->ink_muted);
   draw_text (d, d->x0, ink_y, (d->x1 - d->x0) * 0.62, d->footer_left, 6.5, T_MUTED);
   draw_text (d, d->x0, ink_y, d->x1 - d->x0, num, 7.5, T_BOLD | T_RIGHT);
-  draw_text (d, d->x0, ink_y + 9, (d->x1 - d->x0) * 0.7, FOOTER_CAUTION, 6.5, T_MUTED | T_ITALIC);
+  draw_text (d, d->x0, ink_y + 9, (d->x1 - d->x0) * 0.7, _(FOOTER_CAUTION), 6.5, T_MUTED | T_ITALIC);
   d->y = d->top;
 }
 
@@ -463,7 +465,7 @@ doc_figure_box (Doc *d, double h)
 static void
 doc_caption (Doc *d, const char *text)
 {
-  g_autofree char *s = g_strdup_printf ("Figure %d. %s", ++d->figure, text);
+  g_autofree char *s = g_strdup_printf (_("Figure %d. %s"), ++d->figure, text);
   d->y += 3;
   d->y += draw_text (d, d->x0, d->y, d->x1 - d->x0, s, 8, T_ITALIC | T_MUTED) + 10;
 }
@@ -511,7 +513,7 @@ case_label (const BwResults *r, int i)
 {
   if (i < 0 || (guint) i >= r->n_cases)
     return g_strdup ("—");
-  return bw_load_case_label (&r->cases[i]);
+  return bw_label_load_case (&r->cases[i]);
 }
 
 /* "C9 maximum day, coldest, all in service": the case with its number in the design basis. */
@@ -521,7 +523,7 @@ case_ref (const BwResults *r, int i)
   g_autofree char *label = NULL;
   if (i < 0 || (guint) i >= r->n_cases)
     return g_strdup ("—");
-  label = bw_load_case_label (&r->cases[i]);
+  label = bw_label_load_case (&r->cases[i]);
   return g_strdup_printf ("C%d %s", i + 1, label);
 }
 
@@ -533,7 +535,7 @@ limit_text (const BwCheck *c, BwUnitSystem units)
     return g_strdup ("—");
   v = q_fmt (c->criterion->quantity, c->limit, units);
   return g_strdup_printf ("%s %s%s", c->limit_is_max ? "≤" : "≥", v,
-                          c->limit_is_required ? "" : " (preferred)");
+                          c->limit_is_required ? "" : _(" (preferred)"));
 }
 
 static char *
@@ -545,7 +547,7 @@ citation_text (const BwCriterion *c)
   if (c->clause && *c->clause)
     g_string_append_printf (s, ", %s", c->clause);
   if (c->provenance == BW_PROVENANCE_MEMORY)
-    g_string_append (s, " — from memory, verify");
+    g_string_append (s, _(" — from memory, verify"));
   return g_string_free (s, FALSE);
 }
 
@@ -554,10 +556,10 @@ status_text (BwCheckStatus s)
 {
   switch (s)
     {
-    case BW_CHECK_PASS: return "PASS";
-    case BW_CHECK_WARN: return "WARN";
-    case BW_CHECK_FAIL: return "FAIL";
-    default: return "n/a";
+    case BW_CHECK_PASS: return C_("check", "PASS");
+    case BW_CHECK_WARN: return C_("check", "WARN");
+    case BW_CHECK_FAIL: return C_("check", "FAIL");
+    default: return C_("check", "n/a");
     }
 }
 
@@ -582,26 +584,26 @@ cover (Doc *d, const BwProject *p, const BwCriteriaSet *set, const char *kind, c
 {
   static const double kv_w[] = { 0.3, 0.7 };
   const double w = d->x1 - d->x0;
-  Table *t = table_new (2, kv_w, NULL, 10, "Item", "Entry");
+  Table *t = table_new (2, kv_w, NULL, 10, _("Item"), _("Entry"));
   double box_h, y;
   g_autofree char *crit = NULL;
 
   doc_page (d, TRUE);
   d->y = d->top + 60;
   d->y += draw_text (d, d->x0, d->y, w, kind, 11, T_MUTED | T_BOLD) + 6;
-  d->y += draw_text (d, d->x0, d->y, w, nz (p->name, "Untitled project"), 24, T_BOLD) + 6;
+  d->y += draw_text (d, d->x0, d->y, w, nz (p->name, _("Untitled project")), 24, T_BOLD) + 6;
   if (p->description && *p->description)
     d->y += draw_text (d, d->x0, d->y, w, p->description, 10.5, 0) + 6;
   hrule (d, d->y + 4, 1.5, d->style->ink);
   d->y += 20;
 
   crit = set ? g_strdup_printf ("%s (%s)", nz (set->name, set->id), set->id) : g_strdup ("—");
-  table_row_take (t, g_strdup ("Prepared by"), g_strdup (nz (p->preparer, "not stated")));
-  table_row_take (t, g_strdup ("Date"), g_strdup (nz (p->date, "not stated")));
-  table_row_take (t, g_strdup ("Revision"), g_strdup (nz (p->revision, "not stated")));
-  table_row_take (t, g_strdup ("Criteria set"), g_strdup (crit));
-  table_row_take (t, g_strdup ("Units"), g_strdup (units == BW_UNIT_SYSTEM_US ? "US customary" : "SI (metric)"));
-  table_row_take (t, g_strdup ("Produced with"), g_strdup_printf ("Basinwright %s", PACKAGE_VERSION));
+  table_row_take (t, g_strdup (_("Prepared by")), g_strdup (nz (p->preparer, _("not stated"))));
+  table_row_take (t, g_strdup (_("Date")), g_strdup (nz (p->date, _("not stated"))));
+  table_row_take (t, g_strdup (_("Revision")), g_strdup (nz (p->revision, _("not stated"))));
+  table_row_take (t, g_strdup (_("Criteria set")), g_strdup (crit));
+  table_row_take (t, g_strdup (_("Units")), g_strdup (units == BW_UNIT_SYSTEM_US ? _("US customary") : _("SI (metric)")));
+  table_row_take (t, g_strdup (_("Produced with")), g_strdup_printf (_("Basinwright %s"), PACKAGE_VERSION));
   doc_table (d, t);
   table_free (t);
 
@@ -612,7 +614,7 @@ cover (Doc *d, const BwProject *p, const BwCriteriaSet *set, const char *kind, c
     }
 
   /* The caution, boxed. */
-  box_h = text_height (d, CAUTION_TEXT, 10, 0, w - 28) + 36;
+  box_h = text_height (d, _(CAUTION_TEXT), 10, 0, w - 28) + 36;
   y = MAX (d->y + 20, d->bottom - box_h - 10);
   cairo_save (d->cr);
   cairo_set_source_rgb (d->cr, 0.99, 0.96, 0.88);
@@ -622,8 +624,8 @@ cover (Doc *d, const BwProject *p, const BwCriteriaSet *set, const char *kind, c
   cairo_set_line_width (d->cr, 1.2);
   cairo_stroke (d->cr);
   cairo_restore (d->cr);
-  draw_text (d, d->x0 + 14, y + 10, w - 28, "Caution", 10.5, T_BOLD);
-  draw_text (d, d->x0 + 14, y + 26, w - 28, CAUTION_TEXT, 10, 0);
+  draw_text (d, d->x0 + 14, y + 10, w - 28, _("Caution"), 10.5, T_BOLD);
+  draw_text (d, d->x0 + 14, y + 26, w - 28, _(CAUTION_TEXT), 10, 0);
   d->y = y + box_h;
 }
 
@@ -632,9 +634,9 @@ static void
 contents (Doc *d)
 {
   g_free (d->section);
-  d->section = g_strdup ("Contents");
+  d->section = g_strdup (_("Contents"));
   doc_page (d, FALSE);
-  d->y += draw_text (d, d->x0, d->y, d->x1 - d->x0, "Contents", 16, T_BOLD);
+  d->y += draw_text (d, d->x0, d->y, d->x1 - d->x0, _("Contents"), 16, T_BOLD);
   hrule (d, d->y + 3, 1.2, d->style->ink);
   d->y += 14;
   if (d->prev_toc == NULL)
@@ -696,73 +698,73 @@ design_basis (Doc *d, const Report *rp)
   const BwDesignBasis *b = &p->basis;
   Table *t;
 
-  doc_section (d, "Design basis");
-  doc_para (d, "The plant flows, water temperatures and raw-water quality every unit was evaluated "
+  doc_section (d, _("Design basis"));
+  doc_para (d, _("The plant flows, water temperatures and raw-water quality every unit was evaluated "
                "with. The plant flow divides equally among the trains and then among each unit's "
-               "units in service.", 9.5, 0);
+               "units in service."), 9.5, 0);
 
-  doc_sub (d, "Plant flows", FALSE, 60);
-  t = table_new (2, w2, f2, 9.5, "Flow", "Value");
+  doc_sub (d, _("Plant flows"), FALSE, 60);
+  t = table_new (2, w2, f2, 9.5, _("Flow"), _("Value"));
   for (int k = 0; k < BW_N_FLOW_KINDS; k++)
     if (b->flows_given & (1u << k))
-      table_row_take (t, g_strdup (bw_flow_kind_label (k)), fmt (b->flow_m3_s[k], BW_KIND_FLOW, rp->units));
+      table_row_take (t, g_strdup (bw_label_flow_kind (k)), fmt (b->flow_m3_s[k], BW_KIND_FLOW, rp->units));
   doc_table (d, t);
   table_free (t);
 
-  doc_sub (d, "Water temperatures and raw water", FALSE, 60);
-  t = table_new (2, w2, f2, 9.5, "Item", "Value");
-  table_row_take (t, g_strdup ("coldest water"), fmt (b->temperature_K[BW_TEMP_COLDEST], BW_KIND_TEMPERATURE, rp->units));
-  table_row_take (t, g_strdup ("warmest water"), fmt (b->temperature_K[BW_TEMP_WARMEST], BW_KIND_TEMPERATURE, rp->units));
-  table_row_take (t, g_strdup ("raw-water turbidity"), fmt (b->turbidity_NTU, BW_KIND_TURBIDITY, rp->units));
-  table_row_take (t, g_strdup ("raw-water alkalinity (as CaCO₃)"), fmt (b->alkalinity_kg_m3, BW_KIND_CONCENTRATION, rp->units));
-  table_row_take (t, g_strdup ("raw-water pH"), bw_format_number (b->ph, 3));
+  doc_sub (d, _("Water temperatures and raw water"), FALSE, 60);
+  t = table_new (2, w2, f2, 9.5, _("Item"), _("Value"));
+  table_row_take (t, g_strdup (_("coldest water")), fmt (b->temperature_K[BW_TEMP_COLDEST], BW_KIND_TEMPERATURE, rp->units));
+  table_row_take (t, g_strdup (_("warmest water")), fmt (b->temperature_K[BW_TEMP_WARMEST], BW_KIND_TEMPERATURE, rp->units));
+  table_row_take (t, g_strdup (_("raw-water turbidity")), fmt (b->turbidity_NTU, BW_KIND_TURBIDITY, rp->units));
+  table_row_take (t, g_strdup (_("raw-water alkalinity (as CaCO₃)")), fmt (b->alkalinity_kg_m3, BW_KIND_CONCENTRATION, rp->units));
+  table_row_take (t, g_strdup (_("raw-water pH")), bw_format_number (b->ph, 3));
   doc_table (d, t);
   table_free (t);
 
-  doc_sub (d, "Coagulation chemistry", FALSE, 60);
+  doc_sub (d, _("Coagulation chemistry"), FALSE, 60);
   if (!p->chemistry.enabled)
-    doc_para (d, "No coagulant is specified; chemistry quantities are not reported.", 9.5, T_ITALIC);
+    doc_para (d, _("No coagulant is specified; chemistry quantities are not reported."), 9.5, T_ITALIC);
   else
     {
       const BwChemistryBasis *c = &p->chemistry;
-      t = table_new (2, w2, f2, 9.5, "Item", "Value");
-      table_row_take (t, g_strdup ("coagulant"), g_strdup (bw_coagulant_kind_name (c->kind)));
-      table_row_take (t, g_strdup ("dose, minimum"), fmt (c->dose_min_kg_m3, BW_KIND_CONCENTRATION, rp->units));
-      table_row_take (t, g_strdup ("dose, design"), fmt (c->dose_design_kg_m3, BW_KIND_CONCENTRATION, rp->units));
-      table_row_take (t, g_strdup ("dose, maximum"), fmt (c->dose_max_kg_m3, BW_KIND_CONCENTRATION, rp->units));
-      table_row_take (t, g_strdup ("suspended solids per NTU"), bw_format_number (c->ss_factor, 3));
+      t = table_new (2, w2, f2, 9.5, _("Item"), _("Value"));
+      table_row_take (t, g_strdup (_("coagulant")), g_strdup (bw_coagulant_kind_name (c->kind)));
+      table_row_take (t, g_strdup (_("dose, minimum")), fmt (c->dose_min_kg_m3, BW_KIND_CONCENTRATION, rp->units));
+      table_row_take (t, g_strdup (_("dose, design")), fmt (c->dose_design_kg_m3, BW_KIND_CONCENTRATION, rp->units));
+      table_row_take (t, g_strdup (_("dose, maximum")), fmt (c->dose_max_kg_m3, BW_KIND_CONCENTRATION, rp->units));
+      table_row_take (t, g_strdup (_("suspended solids per NTU")), bw_format_number (c->ss_factor, 3));
       if (c->residual_target_kg_m3 > 0)
-        table_row_take (t, g_strdup ("residual alkalinity to keep"),
+        table_row_take (t, g_strdup (_("residual alkalinity to keep")),
                         fmt (c->residual_target_kg_m3, BW_KIND_CONCENTRATION, rp->units));
       if (c->jar_test)
-        table_row_take (t, g_strdup ("dose chosen from jar tests"), g_strdup (c->jar_test));
+        table_row_take (t, g_strdup (_("dose chosen from jar tests")), g_strdup (c->jar_test));
       doc_table (d, t);
       table_free (t);
     }
 
-  doc_sub (d, "Trains and units", FALSE, 60);
-  t = table_new (4, w4, f4, 9, "Unit id", "Name and kind", "In parallel", "Standby");
+  doc_sub (d, _("Trains and units"), FALSE, 60);
+  t = table_new (4, w4, f4, 9, _("Unit id"), _("Name and kind"), _("In parallel"), _("Standby"));
   for (guint i = 0; i < p->trains->len; i++)
     {
       const BwTrain *tr = g_ptr_array_index (p->trains, i);
-      g_autofree char *g = g_strdup_printf ("Train %s — %s", tr->id, nz (tr->name, ""));
+      g_autofree char *g = g_strdup_printf (_("Train %s — %s"), tr->id, nz (tr->name, ""));
       table_group (t, g);
       for (guint j = 0; j < tr->units->len; j++)
         {
           const BwProcessUnit *u = g_ptr_array_index (tr->units, j);
           table_row_take (t, g_strdup (u->id),
-                          g_strdup_printf ("%s (%s)", nz (u->name, u->id), bw_process_type_label (u->type)),
+                          g_strdup_printf ("%s (%s)", nz (u->name, u->id), bw_label_process_type (u->type)),
                           g_strdup_printf ("%u", u->n_parallel), g_strdup_printf ("%u", u->n_standby));
         }
     }
   doc_table (d, t);
   table_free (t);
 
-  doc_sub (d, "Load cases", FALSE, 60);
-  doc_para (d, "Every unit is evaluated in each load case below: each flow given, at the coldest and "
+  doc_sub (d, _("Load cases"), FALSE, 60);
+  doc_para (d, _("Every unit is evaluated in each load case below: each flow given, at the coldest and "
                "warmest water, with all units in service and at firm capacity (standby units out of "
-               "service). The case numbers are used in the tables that follow.", 9.5, 0);
-  t = table_new (3, w3, NULL, 9, "No.", "Load case", "Id");
+               "service). The case numbers are used in the tables that follow."), 9.5, 0);
+  t = table_new (3, w3, NULL, 9, _("No."), _("Load case"), _("Id"));
   for (guint i = 0; i < rp->r->n_cases; i++)
     table_row_take (t, g_strdup_printf ("C%u", i + 1), case_label (rp->r, (int) i),
                     bw_load_case_id (&rp->r->cases[i]));
@@ -777,11 +779,11 @@ param_value (const BwParamSpec *s, double v, BwUnitSystem units)
     {
     case BW_PARAM_QUANTITY:
       if (s->optional && v == 0)
-        return g_strdup ("not given");
+        return g_strdup (_("not given"));
       return fmt (v, s->kind, units);
     case BW_PARAM_COUNT:
       if (s->optional && v == 0)
-        return g_strdup ("not given");
+        return g_strdup (_("not given"));
       return g_strdup_printf ("%.0f", v);
     case BW_PARAM_CHOICE:
       return g_strdup (nz (bw_param_choice_name (s, (int) v), "—"));
@@ -797,14 +799,14 @@ inputs_table (Doc *d, const Report *rp, const BwProcessUnit *u, gboolean counts)
   static const guint f[] = { 0, T_RIGHT, T_MUTED };
   guint n;
   const BwParamSpec *specs = bw_params_of (u->type, &n);
-  Table *t = table_new (3, w, f, 8.5, "Parameter", "Value", "Meaning");
+  Table *t = table_new (3, w, f, 8.5, _("Parameter"), _("Value"), _("Meaning"));
 
   if (counts)
     {
-      table_row_take (t, g_strdup ("units in parallel"), g_strdup_printf ("%u", u->n_parallel),
-                      g_strdup ("identical units side by side"));
-      table_row_take (t, g_strdup ("standby units"), g_strdup_printf ("%u", u->n_standby),
-                      g_strdup ("out of service in the firm-capacity cases"));
+      table_row_take (t, g_strdup (_("units in parallel")), g_strdup_printf ("%u", u->n_parallel),
+                      g_strdup (_("identical units side by side")));
+      table_row_take (t, g_strdup (_("standby units")), g_strdup_printf ("%u", u->n_standby),
+                      g_strdup (_("out of service in the firm-capacity cases")));
     }
   for (guint i = 0; i < n; i++)
     table_row_take (t, g_strdup (specs[i].label), param_value (&specs[i], u->values[i], rp->units),
@@ -839,7 +841,7 @@ results_table (Doc *d, const Report *rp, guint ei)
       t->size = 8;
       t->header = g_ptr_array_new_with_free_func (g_free);
       t->rows = g_ptr_array_new_with_free_func ((GDestroyNotify) g_ptr_array_unref);
-      g_ptr_array_add (t->header, g_strdup ("Quantity"));
+      g_ptr_array_add (t->header, g_strdup (_("Quantity")));
       for (guint c = 0; c < r->n_cases; c++)
         g_ptr_array_add (t->header, case_label (r, (int) c));
       for (guint q = 0; q < BW_N_QUANTITIES; q++)
@@ -848,7 +850,7 @@ results_table (Doc *d, const Report *rp, guint ei)
           if (!bw_quantity_set_has (&e->values[0], q))
             continue;
           row = g_ptr_array_new_with_free_func (g_free);
-          g_ptr_array_add (row, g_strdup (bw_quantity_info (q)->label));
+          g_ptr_array_add (row, g_strdup (bw_label_text (bw_quantity_info (q)->label)));
           for (guint c = 0; c < r->n_cases; c++)
             g_ptr_array_add (row, bw_quantity_set_has (&e->values[c], q)
                                       ? q_fmt (q, e->values[c].values[q], rp->units) : g_strdup ("—"));
@@ -864,7 +866,7 @@ results_table (Doc *d, const Report *rp, guint ei)
   {
     static const double w[] = { 0.24, 0.15, 0.23, 0.15, 0.23 };
     static const guint f[] = { 0, T_RIGHT, T_MUTED, T_RIGHT, T_MUTED };
-    t = table_new (5, w, f, 8, "Quantity", "Smallest", "in case", "Largest", "in case");
+    t = table_new (5, w, f, 8, _("Quantity"), _("Smallest"), _("in case"), _("Largest"), _("in case"));
     for (guint q = 0; q < BW_N_QUANTITIES; q++)
       {
         const int lo = bw_results_extreme_case (r, ei, q, FALSE);
@@ -872,10 +874,10 @@ results_table (Doc *d, const Report *rp, guint ei)
         if (lo < 0 || hi < 0)
           continue;
         if (e->values[lo].values[q] == e->values[hi].values[q])
-          table_row_take (t, g_strdup (bw_quantity_info (q)->label), q_fmt (q, e->values[lo].values[q], rp->units),
-                          g_strdup ("the same in every case"), NULL, NULL);
+          table_row_take (t, g_strdup (bw_label_text (bw_quantity_info (q)->label)), q_fmt (q, e->values[lo].values[q], rp->units),
+                          g_strdup (_("the same in every case")), NULL, NULL);
         else
-          table_row_take (t, g_strdup (bw_quantity_info (q)->label), q_fmt (q, e->values[lo].values[q], rp->units),
+          table_row_take (t, g_strdup (bw_label_text (bw_quantity_info (q)->label)), q_fmt (q, e->values[lo].values[q], rp->units),
                           case_ref (r, lo),
                           q_fmt (q, e->values[hi].values[q], rp->units),
                           case_ref (r, hi));
@@ -891,7 +893,7 @@ governing_table (Doc *d, const Report *rp, guint ei)
 {
   static const double w[] = { 0.3, 0.15, 0.2, 0.1, 0.25 };
   static const guint f[] = { 0, T_RIGHT, T_RIGHT, T_BOLD | T_CENTER, T_MUTED };
-  Table *t = table_new (5, w, f, 8, "Criterion", "Governing value", "Limit", "Status", "Governing case");
+  Table *t = table_new (5, w, f, 8, _("Criterion"), _("Governing value"), _("Limit"), _("Status"), _("Governing case"));
   gboolean any = FALSE;
 
   for (guint i = 0; i < rp->checks->len; i++)
@@ -913,37 +915,37 @@ governing_table (Doc *d, const Report *rp, guint ei)
 static void
 unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *u)
 {
-  g_autofree char *title = g_strdup_printf ("Unit %s — %s", u->id, nz (u->name, ""));
+  g_autofree char *title = g_strdup_printf (_("Unit %s — %s"), u->id, nz (u->name, ""));
   const double w = d->x1 - d->x0;
   const double fig_h = w * 0.6;
 
   doc_section (d, title);
   {
-    g_autofree char *intro = g_strdup_printf ("%s of train %s. %u in parallel, %u on standby.",
-                                              bw_process_type_label (u->type), tr->id, u->n_parallel,
+    g_autofree char *intro = g_strdup_printf (_("%s of train %s. %u in parallel, %u on standby."),
+                                              bw_label_process_type (u->type), tr->id, u->n_parallel,
                                               u->n_standby);
     intro[0] = g_ascii_toupper (intro[0]);
     doc_para (d, intro, 9.5, 0);
   }
 
-  doc_sub (d, "Inputs", FALSE, 60);
+  doc_sub (d, _("Inputs"), FALSE, 60);
   inputs_table (d, rp, u, TRUE);
   if (u->stages)
     for (guint s = 0; s < u->stages->len; s++)
       {
         const BwProcessUnit *st = g_ptr_array_index (u->stages, s);
-        g_autofree char *h = g_strdup_printf ("Stage %u: %s (%s, %s)", s + 1, nz (st->name, st->id), st->id,
-                                              bw_process_type_label (st->type));
+        g_autofree char *h = g_strdup_printf (_("Stage %u: %s (%s, %s)"), s + 1, nz (st->name, st->id), st->id,
+                                              bw_label_process_type (st->type));
         doc_minor (d, h, 50);
         inputs_table (d, rp, st, FALSE);
       }
 
-  doc_sub (d, "Results in every load case", FALSE, 60);
+  doc_sub (d, _("Results in every load case"), FALSE, 60);
   if (rp->r->n_cases > FULL_TABLE_MAX_CASES)
     {
-      g_autofree char *s = g_strdup_printf ("For each quantity the smallest and largest value over the %u "
+      g_autofree char *s = g_strdup_printf (_("For each quantity the smallest and largest value over the %u "
                                             "load cases and the case where each occurs (case numbers as "
-                                            "listed in the design basis). Values are per unit in service.",
+                                            "listed in the design basis). Values are per unit in service."),
                                             rp->r->n_cases);
       doc_para (d, s, 8.5, T_MUTED);
     }
@@ -958,7 +960,7 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
       results_table (d, rp, i);
     }
 
-  doc_sub (d, "Governing values", FALSE, 60);
+  doc_sub (d, _("Governing values"), FALSE, 60);
   {
     gboolean any = FALSE;
     for (guint i = 0; i < rp->r->elements->len; i++)
@@ -981,10 +983,10 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
         any |= governing_table (d, rp, i);
       }
     if (!any)
-      doc_para (d, "No criterion of the set applies to this unit.", 9, T_ITALIC);
+      doc_para (d, _("No criterion of the set applies to this unit."), 9, T_ITALIC);
   }
 
-  doc_sub (d, "Drawings", FALSE, fig_h);
+  doc_sub (d, _("Drawings"), FALSE, fig_h);
   for (int v = 0; v < BW_N_SKETCH_VIEWS; v++)
     {
       g_autoptr (GError) error = NULL;
@@ -999,7 +1001,7 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
         {
           cairo_restore (d->cr);
           d->y = top;
-          cap = g_strdup_printf ("The %s of %s could not be drawn: %s", bw_sketch_view_name (v), u->id,
+          cap = g_strdup_printf (_("The %s of %s could not be drawn: %s"), bw_sketch_view_name (v), u->id,
                                  error->message);
           doc_para (d, cap, 9, T_ITALIC);
           continue;
@@ -1007,8 +1009,8 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
       cairo_restore (d->cr);
       frame_box (d, top, fig_h);
       cap = v == BW_SKETCH_SCHEMATIC
-              ? g_strdup_printf ("Schematic of train %s (not to scale), with the results of the design case.", tr->id)
-              : g_strdup_printf ("%s of %s, to scale.", v == BW_SKETCH_PLAN ? "Plan" : "Section", u->id);
+              ? g_strdup_printf (_("Schematic of train %s (not to scale), with the results of the design case."), tr->id)
+              : g_strdup_printf (_("%s of %s, to scale."), v == BW_SKETCH_PLAN ? _("Plan") : _("Section"), u->id);
       doc_caption (d, cap);
     }
 
@@ -1027,7 +1029,7 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
         g_ptr_array_add (charts, c), g_ptr_array_add (caps, (caption));                            \
       else                                                                                         \
         g_ptr_array_add (charts, NULL),                                                            \
-          g_ptr_array_add (caps, g_strdup_printf ("Chart not drawn: %s", error ? error->message : "no data")); \
+          g_ptr_array_add (caps, g_strdup_printf (_("Chart not drawn: %s"), error ? error->message : _("no data"))); \
     }                                                                                              \
   while (0)
 
@@ -1035,37 +1037,37 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
       {
       case BW_PROCESS_RAPID_MIX:
         ADD_CHART (bw_chart_impeller_power (rp->p, rp->r, rp->checks, u->id, rp->units, &error),
-                   g_strdup_printf ("Impeller power and G against speed for %s.", u->id));
+                   g_strdup_printf (_("Impeller power and G against speed for %s."), u->id));
         break;
       case BW_PROCESS_FLOCCULATOR:
         ADD_CHART (bw_chart_floc_taper (rp->p, rp->r, rp->checks, u->id, rp->units, &error),
-                   g_strdup_printf ("Velocity-gradient taper of %s by stage.", u->id));
+                   g_strdup_printf (_("Velocity-gradient taper of %s by stage."), u->id));
         for (guint s = 0; u->stages && s < u->stages->len; s++)
           {
             const BwProcessUnit *st = g_ptr_array_index (u->stages, s);
             if (st->type == BW_STAGE_TURBINE)
               ADD_CHART (bw_chart_impeller_power (rp->p, rp->r, rp->checks, st->id, rp->units, &error),
-                         g_strdup_printf ("Impeller power and G against speed for stage %s.", st->id));
+                         g_strdup_printf (_("Impeller power and G against speed for stage %s."), st->id));
           }
         break;
       case BW_PROCESS_RECTANGULAR_BASIN:
       case BW_PROCESS_CIRCULAR_CLARIFIER:
       case BW_PROCESS_PLATE_SETTLER:
         ADD_CHART (bw_chart_settling_curves (rp->p, rp->r, u->id, 0, rp->units, &error),
-                   g_strdup_printf ("Settling velocity against particle size, with the overflow rates of %s.", u->id));
+                   g_strdup_printf (_("Settling velocity against particle size, with the overflow rates of %s."), u->id));
         ADD_CHART (bw_chart_removal_curves (rp->p, rp->r, u->id, rp->units, &error),
-                   g_strdup_printf ("Predicted removal against overflow rate for %s.", u->id));
+                   g_strdup_printf (_("Predicted removal against overflow rate for %s."), u->id));
         if (bw_project_column_test_for (rp->p, u->id) != NULL)
           ADD_CHART (bw_chart_iso_removal (rp->p, rp->r, u->id, rp->units, &error),
-                     g_strdup_printf ("Iso-removal curves of the settling-column test for %s, with "
-                                      "its design point and Type II removal.", u->id));
+                     g_strdup_printf (_("Iso-removal curves of the settling-column test for %s, with "
+                                      "its design point and Type II removal."), u->id));
         break;
       default:
         break;
       }
 #undef ADD_CHART
     if (charts->len > 0)
-      doc_sub (d, "Charts", FALSE, fig_h);
+      doc_sub (d, _("Charts"), FALSE, fig_h);
     for (guint i = 0; i < charts->len; i++)
       {
         BwChart *ch = g_ptr_array_index (charts, i);
@@ -1091,18 +1093,18 @@ criteria_section (Doc *d, const Report *rp)
   g_autofree char *intro = NULL;
   Table *t;
 
-  doc_section (d, "Criteria checks");
+  doc_section (d, _("Criteria checks"));
   bw_checks_count (rp->checks, counts);
-  intro = g_strdup_printf ("Every criterion of the set “%s” (%s) graded on every unit it applies to, at "
+  intro = g_strdup_printf (_("Every criterion of the set “%s” (%s) graded on every unit it applies to, at "
                            "the load case where it fares worst. %u pass, %u warn (outside a preferred "
                            "range), %u fail (outside a required limit), %u not applicable. A citation "
                            "marked “from memory, verify” was recalled rather than read in the document: "
-                           "check it against the edition in force.",
+                           "check it against the edition in force."),
                            nz (rp->set->name, rp->set->id), rp->set->id, counts[BW_CHECK_PASS],
                            counts[BW_CHECK_WARN], counts[BW_CHECK_FAIL], counts[BW_CHECK_NOT_APPLICABLE]);
   doc_para (d, intro, 9.5, 0);
 
-  t = table_new (7, w, f, 7.2, "Status", "Element", "Criterion", "Value", "Limit", "Governing case", "Citation");
+  t = table_new (7, w, f, 7.2, _("Status"), _("Element"), _("Criterion"), _("Value"), _("Limit"), _("Governing case"), _("Citation"));
   for (guint i = 0; i < rp->checks->len; i++)
     {
       const BwCheck *c = &g_array_index (rp->checks, BwCheck, i);
@@ -1121,7 +1123,7 @@ criteria_section (Doc *d, const Report *rp)
       const BwTrain *tr = g_ptr_array_index (rp->p->trains, i);
       g_autoptr (GError) error = NULL;
       g_autoptr (BwChart) m = bw_chart_check_matrix (rp->p, rp->r, rp->checks, tr->id, &error);
-      g_autofree char *cap = g_strdup_printf ("Outcome of each check of train %s in each load case.", tr->id);
+      g_autofree char *cap = g_strdup_printf (_("Outcome of each check of train %s in each load case."), tr->id);
       if (m == NULL)
         continue;
       m->transparent = TRUE;
@@ -1138,53 +1140,54 @@ typedef struct
 
 /* Drawn from docs/manual.md and the engine's comments; the wording is ours. */
 static const Method methods[] = {
-  { "Water density", "Function of temperature for liquid water at 101.325 kPa, 0–40 °C.",
+  { N_("Water density"), N_("Function of temperature for liquid water at 101.325 kPa, 0–40 °C."),
     "Tanaka et al. (2001), Metrologia 38:301" },
-  { "Water viscosity", "μ = μ0(T)·μ1(T, ρ); kinematic viscosity ν = μ/ρ.",
+  { N_("Water viscosity"), N_("μ = μ0(T)·μ1(T, ρ); kinematic viscosity ν = μ/ρ."),
     "IAPWS R12-08 (2008)" },
-  { "Relative permittivity", "Empirical fit in temperature (used for zeta potential only).",
+  { N_("Relative permittivity"), N_("Empirical fit in temperature (used for zeta potential only)."),
     "Malmberg & Maryott (1956)" },
-  { "Impeller power", "P = Np·ρ·N³·D⁵ in the turbulent range; library power numbers for fully baffled "
+  { N_("Impeller power"), N_("P = Np·ρ·N³·D⁵ in the turbulent range; library power numbers for fully baffled "
     "tanks (Rushton 5.7; 45° pitched blade 1.27, from memory; hydrofoil 0.30, typical) or a given Np; "
-    "impeller Reynolds number ρND²/μ, caution below 10⁴.",
+    "impeller Reynolds number ρND²/μ, caution below 10⁴."),
     "Davis (2010); McCabe, Smith & Harriott (from memory)" },
-  { "Velocity gradient", "G = √(P/(μV)); detention t = V/Q; Camp number Gt; motor power P/η.",
+  { N_("Velocity gradient"), N_("G = √(P/(μV)); detention t = V/Q; Camp number Gt; motor power P/η."),
     "Camp & Stein (1943)" },
-  { "Hydraulic mixer", "G = √(ρ·g·h·Q/(μ·V)) from the head loss.", "Camp & Stein (1943)" },
-  { "Paddle flocculator", "P = Σ Cd·A·ρ·v_r³/2 over the blades, v_r = k·2πrN (k = 0.75 by default); Cd "
-    "from blade length/width.", "Davis (2010), Eq. 6-20 and Table 6-7" },
-  { "Baffled flocculator", "Manning friction h_f = L(n·v)²/R^(4/3) plus turn losses K·v²/(2g), K = 3.2; "
-    "G = √(g·h/(ν·t)).", "Haarhoff (1998), as tabulated by Hendricks (2011)" },
-  { "Train G", "Reported as Gt/t and as √(ΣP/(μΣV)) over the stages.", "Camp & Stein (1943)" },
-  { "Discrete settling", "Stokes' law while Re < 0.01; beyond, the force balance Cd·Re² = 4gd³ρ(ρp−ρ)/(3μ²) "
-    "with the Clift–Gauvin drag curve (or 24/Re + 3/√Re + 0.34).", "Clift & Gauvin (1970); Davis (2010)" },
-  { "Rectangular basin", "Overflow rate Q/(LW), detention, horizontal velocity Q/(WH), weir loading; "
-    "Reynolds and Froude numbers on R = WH/(W+2H).", "Davis (2010), after Kawamura" },
-  { "Scour", "V = √(8k(s−1)gd/f), k = 0.05 and f = 0.025 by default, against the horizontal velocity.",
+  { N_("Hydraulic mixer"), N_("G = √(ρ·g·h·Q/(μ·V)) from the head loss."), "Camp & Stein (1943)" },
+  { N_("Paddle flocculator"), N_("P = Σ Cd·A·ρ·v_r³/2 over the blades, v_r = k·2πrN (k = 0.75 by default); Cd "
+    "from blade length/width."), "Davis (2010), Eq. 6-20 and Table 6-7" },
+  { N_("Baffled flocculator"), N_("Manning friction h_f = L(n·v)²/R^(4/3) plus turn losses K·v²/(2g), K = 3.2; "
+    "G = √(g·h/(ν·t))."), "Haarhoff (1998), as tabulated by Hendricks (2011)" },
+  { N_("Train G"), N_("Reported as Gt/t and as √(ΣP/(μΣV)) over the stages."), "Camp & Stein (1943)" },
+  { N_("Discrete settling"), N_("Stokes' law while Re < 0.01; beyond, the force balance Cd·Re² = 4gd³ρ(ρp−ρ)/(3μ²) "
+    "with the Clift–Gauvin drag curve (or 24/Re + 3/√Re + 0.34)."), "Clift & Gauvin (1970); Davis (2010)" },
+  { N_("Rectangular basin"), N_("Overflow rate Q/(LW), detention, horizontal velocity Q/(WH), weir loading; "
+    "Reynolds and Froude numbers on R = WH/(W+2H)."), "Davis (2010), after Kawamura" },
+  { N_("Scour"), N_("V = √(8k(s−1)gd/f), k = 0.05 and f = 0.025 by default, against the horizontal velocity."),
     "Camp (1946)" },
-  { "Circular clarifier", "Overflow rate on the area net of the feed well; detention on the gross area; "
-    "weir loading of the launder.", "AWWA/ASCE, Water Treatment Plant Design" },
-  { "Plate and tube settlers", "Loading on the projected area; critical velocity "
-    "v_sc = S·v0/(sin θ + (l/w) cos θ), S = 1, 4/3, 11/8.", "Yao (1970)" },
-  { "Removal", "Ideal basin min(1, vs/v0); Hazen's 1 − [1 + (vs/v0)/n]^(−n).", "Camp (1946); Hazen (1904)" },
-  { "Coagulant chemistry", "Feed = dose × flow; alkalinity consumed from IUPAC atomic weights; dry sludge "
-    "as metal hydroxide plus solids removed per NTU.", "Cornwell et al. (1987, from memory)" },
-  { "Load cases and governing case", "Every flow given × coldest and warmest water × all in service and "
-    "firm capacity; a criterion's governing case is the one where it fares worst.", "Basinwright manual" },
+  { N_("Circular clarifier"), N_("Overflow rate on the area net of the feed well; detention on the gross area; "
+    "weir loading of the launder."), "AWWA/ASCE, Water Treatment Plant Design" },
+  { N_("Plate and tube settlers"), N_("Loading on the projected area; critical velocity "
+    "v_sc = S·v0/(sin θ + (l/w) cos θ), S = 1, 4/3, 11/8."), "Yao (1970)" },
+  { N_("Removal"), N_("Ideal basin min(1, vs/v0); Hazen's 1 − [1 + (vs/v0)/n]^(−n)."), "Camp (1946); Hazen (1904)" },
+  { N_("Coagulant chemistry"), N_("Feed = dose × flow; alkalinity consumed from IUPAC atomic weights; dry sludge "
+    "as metal hydroxide plus solids removed per NTU."), "Cornwell et al. (1987, from memory)" },
+  { N_("Load cases and governing case"), N_("Every flow given × coldest and warmest water × all in service and "
+    "firm capacity; a criterion's governing case is the one where it fares worst."), "Basinwright manual" },
 };
 
 static void
 methods_section (Doc *d)
 {
   static const double w[] = { 0.2, 0.52, 0.28 };
-  Table *t = table_new (3, w, NULL, 8, "Quantity", "Method", "Reference");
+  Table *t = table_new (3, w, NULL, 8, _("Quantity"), _("Method"), _("Reference"));
 
-  doc_section (d, "Methods and references");
-  doc_para (d, "The correlations the results above were computed with. Full references are listed in "
+  doc_section (d, _("Methods and references"));
+  doc_para (d, _("The correlations the results above were computed with. Full references are listed in "
                "the Basinwright documentation (docs/references.md). Values marked “from memory” were "
-               "recalled rather than read and should be verified against the source.", 9.5, 0);
+               "recalled rather than read and should be verified against the source."), 9.5, 0);
   for (guint i = 0; i < G_N_ELEMENTS (methods); i++)
-    table_row_take (t, g_strdup (methods[i].what), g_strdup (methods[i].method), g_strdup (methods[i].reference));
+    table_row_take (t, g_strdup (_(methods[i].what)), g_strdup (_(methods[i].method)),
+                    g_strdup (methods[i].reference));
   doc_table (d, t);
   table_free (t);
 }
@@ -1302,7 +1305,7 @@ write_document (BwReportPaper paper, const char *path, const char *title, const 
     {
       int e = errno;
       g_array_unref (prev);
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, "%s: cannot write: %s", path, g_strerror (e));
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, _("%s: cannot write: %s"), path, g_strerror (e));
       return FALSE;
     }
   close (fd);
@@ -1325,7 +1328,7 @@ write_document (BwReportPaper paper, const char *path, const char *title, const 
     {
       g_unlink (tmp);
       g_set_error (error, BW_DRAW_ERROR, st == CAIRO_STATUS_WRITE_ERROR ? BW_DRAW_ERROR_WRITE : BW_DRAW_ERROR_CAIRO,
-                   "%s: cannot write: %s", path, cairo_status_to_string (st));
+                   _("%s: cannot write: %s"), path, cairo_status_to_string (st));
       return FALSE;
     }
   g_chmod (tmp, 0644);
@@ -1333,7 +1336,7 @@ write_document (BwReportPaper paper, const char *path, const char *title, const 
     {
       int e = errno;
       g_unlink (tmp);
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, "%s: cannot write: %s", path, g_strerror (e));
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, _("%s: cannot write: %s"), path, g_strerror (e));
       return FALSE;
     }
   return TRUE;
@@ -1373,7 +1376,7 @@ render_document (BwReportPaper paper, const char *running, const char *footer, B
       const cairo_status_t st = cairo_surface_status (g_ptr_array_index (pages, i));
       if (st != CAIRO_STATUS_SUCCESS)
         {
-          g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, "page %u: cannot be drawn: %s", i + 1,
+          g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, _("page %u: cannot be drawn: %s"), i + 1,
                        cairo_status_to_string (st));
           g_ptr_array_unref (pages);
           return NULL;
@@ -1390,10 +1393,10 @@ report_body (Doc *d, gconstpointer data)
   g_autofree char *summary = NULL;
 
   bw_checks_count (rp->checks, counts);
-  summary = g_strdup_printf ("Criteria: %u pass, %u warn, %u fail, %u not applicable, over %u load cases.",
+  summary = g_strdup_printf (_("Criteria: %u pass, %u warn, %u fail, %u not applicable, over %u load cases."),
                              counts[BW_CHECK_PASS], counts[BW_CHECK_WARN], counts[BW_CHECK_FAIL],
                              counts[BW_CHECK_NOT_APPLICABLE], rp->r->n_cases);
-  cover (d, rp->p, rp->set, "Coagulation, flocculation and sedimentation — design calculations", summary,
+  cover (d, rp->p, rp->set, _("Coagulation, flocculation and sedimentation — design calculations"), summary,
          rp->units);
   contents (d);
   design_basis (d, rp);
@@ -1410,7 +1413,7 @@ report_body (Doc *d, gconstpointer data)
 static char *
 running_text (const BwProject *p)
 {
-  return g_strdup_printf ("%s · rev. %s", nz (p->name, "Untitled project"), nz (p->revision, "—"));
+  return g_strdup_printf (_("%s · rev. %s"), nz (p->name, _("Untitled project")), nz (p->revision, "—"));
 }
 
 gboolean
@@ -1426,12 +1429,12 @@ bw_report_write_pdf (const BwProject *p, const BwResults *r, GArray *checks, con
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
   if (paper >= BW_N_REPORT_PAPERS)
     {
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "paper: unknown paper size");
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, _("paper: unknown paper size"));
       return FALSE;
     }
   running = running_text (p);
-  footer = g_strdup_printf ("Basinwright %s · criteria %s", PACKAGE_VERSION, set->id);
-  return write_document (paper, path, nz (p->name, "Design report"), p->preparer, running, footer,
+  footer = g_strdup_printf (_("Basinwright %s · criteria %s"), PACKAGE_VERSION, set->id);
+  return write_document (paper, path, nz (p->name, _("Design report")), p->preparer, running, footer,
                          report_body, &rp, error);
 }
 
@@ -1448,12 +1451,12 @@ bw_report_render_pages (const BwProject *p, const BwResults *r, GArray *checks,
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
   if (paper >= BW_N_REPORT_PAPERS)
     {
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "paper: unknown paper size");
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, _("paper: unknown paper size"));
       return NULL;
     }
   /* The same header and footer text as bw_report_write_pdf: the pages cannot disagree. */
   running = running_text (p);
-  footer = g_strdup_printf ("Basinwright %s · criteria %s", PACKAGE_VERSION, set->id);
+  footer = g_strdup_printf (_("Basinwright %s · criteria %s"), PACKAGE_VERSION, set->id);
   return render_document (paper, running, footer, report_body, &rp, error);
 }
 
@@ -1491,11 +1494,11 @@ stated_case (const Review *rv, const BwFinding *f)
   switch (f->stated->which)
     {
     case BW_STATED_MAXIMUM:
-      return f->load_case >= 0 ? g_strdup_printf ("largest (at %s)", where) : g_strdup ("largest");
+      return f->load_case >= 0 ? g_strdup_printf (_("largest (at %s)"), where) : g_strdup (_("largest"));
     case BW_STATED_MINIMUM:
-      return f->load_case >= 0 ? g_strdup_printf ("smallest (at %s)", where) : g_strdup ("smallest");
+      return f->load_case >= 0 ? g_strdup_printf (_("smallest (at %s)"), where) : g_strdup (_("smallest"));
     default:
-      return bw_load_case_label (&f->stated->load_case);
+      return bw_label_load_case (&f->stated->load_case);
     }
 }
 
@@ -1513,8 +1516,8 @@ stated_table (Doc *d, const Review *rv, BwFindingKind kind, gboolean with_comput
 {
   static const double w[] = { 0.05, 0.14, 0.14, 0.16, 0.11, 0.11, 0.11, 0.18 };
   static const guint f[] = { T_RIGHT, T_MONO, 0, T_MUTED, T_RIGHT, T_RIGHT, T_RIGHT | T_BOLD, T_ITALIC };
-  Table *t = table_new (8, w, f, 7.5, "Line", "Element", "Quantity", "Case", "Stated", "Computed",
-                        "Difference", "Reviewer's comment");
+  Table *t = table_new (8, w, f, 7.5, _("Line"), _("Element"), _("Quantity"), _("Case"), _("Stated"), _("Computed"),
+                        _("Difference"), _("Reviewer's comment"));
 
   for (guint i = 0; i < rv->findings->len; i++)
     {
@@ -1522,14 +1525,14 @@ stated_table (Doc *d, const Review *rv, BwFindingKind kind, gboolean with_comput
       if (fi->kind != kind)
         continue;
       table_row_take (t, g_strdup_printf ("%u", fi->stated->line), g_strdup (fi->stated->element),
-                      g_strdup (bw_quantity_info (fi->stated->quantity)->label), stated_case (rv, fi),
+                      g_strdup (bw_label_text (bw_quantity_info (fi->stated->quantity)->label)), stated_case (rv, fi),
                       q_fmt (fi->stated->quantity, fi->stated->value, rv->units),
                       with_computed ? q_fmt (fi->stated->quantity, fi->computed, rv->units) : g_strdup ("—"),
                       with_computed ? diff_text (fi->relative_difference) : g_strdup ("—"),
                       g_strdup (fi->stated->comment ? fi->stated->comment : ""));
     }
   if (t->rows->len == 0)
-    doc_para (d, "None.", 9.5, T_ITALIC);
+    doc_para (d, _("None."), 9.5, T_ITALIC);
   else
     doc_table (d, t);
   table_free (t);
@@ -1550,39 +1553,39 @@ review_body (Doc *d, gconstpointer data)
       if (f->kind == BW_FINDING_CRITERION)
         fails += f->check->status == BW_CHECK_FAIL, warns += f->check->status == BW_CHECK_WARN;
     }
-  summary = g_strdup_printf ("%u stated values: %u discrepancies, %u agree, %u not computed. "
-                             "Criteria findings: %u fail, %u warn.",
+  summary = g_strdup_printf (_("%u stated values: %u discrepancies, %u agree, %u not computed. "
+                             "Criteria findings: %u fail, %u warn."),
                              n[BW_FINDING_DISCREPANCY] + n[BW_FINDING_AGREES] + n[BW_FINDING_NOT_COMPUTED],
                              n[BW_FINDING_DISCREPANCY], n[BW_FINDING_AGREES], n[BW_FINDING_NOT_COMPUTED], fails,
                              warns);
-  cover (d, rv->p, rv->set, "Review of a submittal — findings", summary, rv->units);
+  cover (d, rv->p, rv->set, _("Review of a submittal — findings"), summary, rv->units);
 
-  doc_section (d, "Discrepancies");
-  intro = g_strdup_printf ("Values the submittal states that differ from Basinwright's own by more than "
+  doc_section (d, _("Discrepancies"));
+  intro = g_strdup_printf (_("Values the submittal states that differ from Basinwright's own by more than "
                            "the reviewer's tolerance of %g %% (relative difference = (stated − computed) / "
                            "|computed|). Line numbers refer to the stated-values file, or to the project file "
-                           "for values kept in its review record.",
+                           "for values kept in its review record."),
                            rv->tolerance * 100);
   doc_para (d, intro, 9.5, 0);
   stated_table (d, rv, BW_FINDING_DISCREPANCY, TRUE);
 
-  doc_sub (d, "Stated values not matched", FALSE, 40);
-  doc_para (d, "Stated values naming an element, quantity or load case that the computed results do "
-               "not have.", 9, T_MUTED);
+  doc_sub (d, _("Stated values not matched"), FALSE, 40);
+  doc_para (d, _("Stated values naming an element, quantity or load case that the computed results do "
+               "not have."), 9, T_MUTED);
   stated_table (d, rv, BW_FINDING_NOT_COMPUTED, FALSE);
 
-  doc_sub (d, "Stated values within tolerance", FALSE, 40);
+  doc_sub (d, _("Stated values within tolerance"), FALSE, 40);
   stated_table (d, rv, BW_FINDING_AGREES, TRUE);
 
-  doc_section (d, "Criteria findings");
+  doc_section (d, _("Criteria findings"));
   {
     static const double w[] = { 0.07, 0.12, 0.18, 0.1, 0.12, 0.16, 0.25 };
     static const guint f[] = { T_BOLD, T_MONO, 0, T_RIGHT, T_RIGHT, T_MUTED, 0 };
-    Table *t = table_new (7, w, f, 7.2, "Status", "Element", "Criterion", "Value", "Limit", "Governing case",
-                          "Clause cited");
-    g_autofree char *ci = g_strdup_printf ("Every criterion of “%s” (%s) that fails (outside a required "
+    Table *t = table_new (7, w, f, 7.2, _("Status"), _("Element"), _("Criterion"), _("Value"), _("Limit"), _("Governing case"),
+                          _("Clause cited"));
+    g_autofree char *ci = g_strdup_printf (_("Every criterion of “%s” (%s) that fails (outside a required "
                                            "limit) or warns (outside a preferred range) in its governing "
-                                           "load case.", nz (rv->set->name, rv->set->id), rv->set->id);
+                                           "load case."), nz (rv->set->name, rv->set->id), rv->set->id);
     doc_para (d, ci, 9.5, 0);
     for (guint i = 0; i < rv->findings->len; i++)
       {
@@ -1596,7 +1599,7 @@ review_body (Doc *d, gconstpointer data)
                         citation_text (c->criterion));
       }
     if (t->rows->len == 0)
-      doc_para (d, "None: every criterion passes or does not apply.", 9.5, T_ITALIC);
+      doc_para (d, _("None: every criterion passes or does not apply."), 9.5, T_ITALIC);
     else
       doc_table (d, t);
     table_free (t);
@@ -1618,17 +1621,17 @@ bw_review_report_write_pdf (const BwProject *p, const BwResults *r, GArray *find
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
   if (paper >= BW_N_REPORT_PAPERS)
     {
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "paper: unknown paper size");
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, _("paper: unknown paper size"));
       return FALSE;
     }
-  running = g_strdup_printf ("%s · review", nz (p->name, "Untitled project"));
+  running = g_strdup_printf (_("%s · review"), nz (p->name, _("Untitled project")));
   {
     g_autofree char *rt = running_text (p);
     g_free (running);
-    running = g_strdup_printf ("%s · review findings", rt);
+    running = g_strdup_printf (_("%s · review findings"), rt);
   }
-  footer = g_strdup_printf ("Basinwright %s · criteria %s · tolerance %g %%", PACKAGE_VERSION, set->id,
+  footer = g_strdup_printf (_("Basinwright %s · criteria %s · tolerance %g %%"), PACKAGE_VERSION, set->id,
                             tolerance * 100);
-  title = g_strdup_printf ("Review findings: %s", nz (p->name, "project"));
+  title = g_strdup_printf (_("Review findings: %s"), nz (p->name, _("project")));
   return write_document (paper, path, title, NULL, running, footer, review_body, &rv, error);
 }

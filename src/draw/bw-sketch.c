@@ -41,6 +41,10 @@ G_DEFINE_QUARK (bw-draw-error-quark, bw_draw_error)
 #define SETTLER_DRAWN 8        /* plates or tubes drawn in a settler's representative run */
 #define SETTLER_BELOW_M 0.5    /* inflow zone under the plates, drawn */
 #define SETTLER_ABOVE_M 0.6    /* clear water over the plates, drawn */
+#define SETTLER_INLET_M 1.0    /* settler plan: inlet zone ahead of the modules, drawn */
+#define SETTLER_PLAN_RATIO 4.0 /* ... in the fewest banks keeping them <= 4 x as long as wide */
+#define SETTLER_MAX_BANKS 64
+#define SETTLER_TROUGH_M 0.3   /* collection trough width, drawn (as in the section) */
 #define MAX_STAGES_DRAWN 8
 
 /* Reference canvas the style's sizes are given for. */
@@ -87,7 +91,7 @@ bw_sketch_supports (BwProcessType type, BwSketchView view)
     case BW_STAGE_BAFFLED:
       return TRUE;
     case BW_PROCESS_PLATE_SETTLER:
-      return view == BW_SKETCH_SECTION;
+      return TRUE;
     case BW_PROCESS_INLINE_MIXER: /* no geometry among its inputs: the schematic only */
     default:
       return FALSE;
@@ -131,6 +135,11 @@ typedef struct
   int shape; /* 0 plates, 1 circular tubes, 2 square tubes */
   double angle, spacing, plate_len, plate_width;
   guint count, n_drawn;
+  /* ... in plan: ROWS rows of PER_ROW channels (a plate is a row of one) in BANKS banks side by
+   * side, each PLATE_WIDTH wide and MODULE_LEN long; at most ROWS_FIT rows fit in a bank */
+  guint per_row, rows, banks, rows_fit;
+  double module_len, module_area;
+  gboolean area_given;
   /* schematic */
   const BwTrain *train;
   BwSketchView view;
@@ -210,6 +219,58 @@ static const BwProcessUnit *
 floc_stage (const Unit *n, guint i)
 {
   return g_ptr_array_index (n->floc->stages, n->first + i);
+}
+
+static double settler_pitch (const Unit *n);
+
+/* The plan layout of a settler's modules (drafting, not design): its rows of channels in as few
+ * banks side by side as keep the modules at most SETTLER_PLAN_RATIO times as long as they are
+ * wide. The modules' length is the entered module area over the banks' width when one is given;
+ * otherwise a bank's rows at the horizontal pitch plus one plate's run in plan,
+ * (rows - 1) x spacing / sin(angle) + length x cos(angle) (derived from the section). */
+static gboolean
+settler_banks (Unit *n, const BwProcessUnit *u, GError **error)
+{
+  const double p = settler_pitch (n), run = n->plate_len * cos (n->angle), b = n->plate_width;
+  guint k = 1;
+
+  if (!positive (b, "plate-width", u, error))
+    return FALSE;
+  if (n->count < 1)
+    {
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
+                   "count: unit '%s' needs at least one plate or tube to be drawn (got 0)", u->id);
+      return FALSE;
+    }
+  n->per_row = n->shape == 0 ? 1 : (guint) MAX (1.0, floor (b / n->spacing + 1e-9));
+  n->rows = (n->count + n->per_row - 1) / n->per_row;
+  n->module_area = param (u, "module-area");
+  n->area_given = isfinite (n->module_area) && n->module_area > 0;
+  if (n->area_given)
+    {
+      if (n->module_area < b * run * (1.0 - 1e-9))
+        {
+          g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
+                       "module-area: unit '%s' covers less than one row of channels in plan "
+                       "(got %g m²; one row is %g m × %g m)", u->id, n->module_area, b, run);
+          return FALSE;
+        }
+      while (k < SETTLER_MAX_BANKS && n->module_area / (k * b) > SETTLER_PLAN_RATIO * k * b
+             && n->module_area / ((k + 1) * b) >= run)
+        k++;
+      n->module_len = n->module_area / (k * b);
+      n->rows_fit = (guint) MIN (floor ((n->module_len - run) / p + 1e-9) + 1.0, 1e7);
+    }
+  else
+    {
+      while (k < MIN ((guint) SETTLER_MAX_BANKS, n->rows)
+             && ((n->rows + k - 1) / k - 1) * p + run > SETTLER_PLAN_RATIO * k * b)
+        k++;
+      n->module_len = ((n->rows + k - 1) / k - 1) * p + run;
+      n->rows_fit = n->rows;
+    }
+  n->banks = k;
+  return TRUE;
 }
 
 static gboolean
@@ -336,7 +397,7 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
           return FALSE;
         }
       out->n_drawn = CLAMP (out->count, 2u, (guint) SETTLER_DRAWN);
-      return TRUE;
+      return view != BW_SKETCH_PLAN || settler_banks (out, u, error);
     }
   if (u->type == BW_PROCESS_RECTANGULAR_BASIN)
     {
@@ -408,6 +469,13 @@ frame_of (const Unit *n, BwSketchView view, Frame *f)
       else
         *f = (Frame) { -r, -n->sludge - BASIN_WALL_M, r, n->depth + BASIN_FREEBOARD_M, 4.0, 15.0,
                        1.6, 3.6 };
+      return;
+    }
+  if (n->type == BW_PROCESS_PLATE_SETTLER && view == BW_SKETCH_PLAN)
+    {
+      const double t = BASIN_WALL_M;
+      *f = (Frame) { -t, -t, SETTLER_INLET_M + n->module_len + t, n->banks * n->plate_width + t,
+                     4.0, 12.0, 4.4, 7.8 };
       return;
     }
   if (n->type == BW_PROCESS_PLATE_SETTLER)
@@ -2462,6 +2530,167 @@ settler_section (Ctx *c, const Unit *n)
   }
 }
 
+/* --- plate or tube settler in plan: the basin, its banks of modules and every row --- */
+
+static double text_box (Ctx *c, double x, double y, double width, const char *s, double size,
+                        gboolean bold, int max_lines, BwRgb col);
+
+/* Rows of channels in bank J of N's banks (the first banks take one more when they differ). */
+static guint
+settler_bank_rows (const Unit *n, guint j)
+{
+  return n->rows / n->banks + (j < n->rows % n->banks ? 1 : 0);
+}
+
+/* The paragraph under a settler's plan: what is drawn of the count, and what is assumed. */
+static char *
+settler_plan_note (const Ctx *c, const Unit *n, guint every)
+{
+  g_autofree char *pitch = fmt_len (c, settler_pitch (n));
+  g_autofree char *run = fmt_len (c, n->plate_len * cos (n->angle));
+  g_autofree char *count = NULL, *drawn = NULL, *basis = NULL, *fit = NULL;
+  const guint most = settler_bank_rows (n, 0);
+
+  if (n->shape == 0)
+    count = g_strdup_printf (ngettext ("%u plates at a pitch of %s in plan, in %u bank",
+                                       "%u plates at a pitch of %s in plan, in %u banks", n->banks),
+                             n->count, pitch, n->banks);
+  else
+    count = g_strdup_printf (ngettext ("%u %s, %u to a row, %u rows at a pitch of %s in plan, in "
+                                       "%u bank",
+                                       "%u %s, %u to a row, %u rows at a pitch of %s in plan, in "
+                                       "%u banks", n->banks),
+                             n->count, _(settler_names[n->shape]), n->per_row, n->rows, pitch,
+                             n->banks);
+  drawn = every > 1 ? g_strdup_printf (_("one row in %u drawn at this scale"), every)
+                    : g_strdup (_("every row drawn"));
+  if (n->area_given)
+    {
+      g_autofree char *area = bw_units_format (n->module_area, BW_KIND_AREA, c->units);
+      trim_zeros (area);
+      basis = g_strdup_printf (_("Footprint: the module area entered, %s; the number of banks "
+                                 "is assumed."), area);
+    }
+  else
+    basis = g_strdup_printf (_("Footprint derived from the count, the pitch and the %s a row "
+                               "covers in plan, length × cos θ (no module area entered); the "
+                               "number of banks is assumed."), run);
+  if (n->area_given && most > n->rows_fit)
+    fit = g_strdup_printf (_(" The count needs %u rows to a bank; the module area holds %u."),
+                           most, n->rows_fit);
+  return g_strdup_printf ("%s; %s. %s%s", count, drawn, basis, fit ? fit : "");
+}
+
+static void
+settler_plan (Ctx *c, const Unit *n)
+{
+  const double t = BASIN_WALL_M, b = n->plate_width, W = n->banks * b;
+  const double x0 = SETTLER_INLET_M, Lm = n->module_len, L = x0 + Lm;
+  const double pitch = settler_pitch (n), run = n->plate_len * cos (n->angle);
+  const double s = c->g.scale, fs = c->ty.body;
+  /* rows closer on the page than this are thinned to one in EVERY, counted from the last */
+  const double need = MAX (4.0, 3.0 * c->lw);
+  const guint every = pitch * s >= need ? 1 : (guint) MIN (ceil (need / (pitch * s)), 1e7);
+  const double tw = MIN (SETTLER_TROUGH_M, Lm / 3), xt = x0 + Lm / 2;
+  const BwStyle *st = c->st;
+
+  wrect (c, 0, 0, L, W);
+  set_rgb (c, st->water);
+  cairo_fill (c->cr);
+  /* walls, the inlet opening in the middle of the inlet wall */
+  {
+    const double o = MIN (0.3 * W, 0.8);
+    wrect (c, -t, -t, L + t, 0);
+    wrect (c, -t, W, L + t, W + t);
+    wrect (c, L, 0, L + t, W);
+    wrect (c, -t, 0, 0, W / 2 - o / 2);
+    wrect (c, -t, W / 2 + o / 2, 0, W);
+    fill_stroke (c, st->concrete, st->ink, st->line_outline);
+    wrect (c, -t, W / 2 - o / 2, 0, W / 2 + o / 2);
+    set_rgb (c, st->water);
+    cairo_fill (c->cr);
+  }
+
+  /* each bank: its outline, and the upper edges of its rows (a plate seen from above covers
+   * length x cos(angle) from its foot; the one behind shows from its own upper edge on) */
+  for (guint j = 0; j < n->banks; j++)
+    {
+      const guint rows = MIN (settler_bank_rows (n, j), n->rows_fit);
+      const double len = n->area_given ? Lm : (rows - 1) * pitch + run;
+      set_rgb (c, st->equipment);
+      set_line (c, 0.5 * st->line_detail);
+      for (gint64 i = (gint64) rows - 1; rows > 0 && i >= 0; i -= every)
+        wline (c, x0 + run + i * pitch, j * b, x0 + run + i * pitch, (j + 1) * b);
+      cairo_stroke (c->cr);
+      wrect (c, x0, j * b, x0 + len, (j + 1) * b);
+      set_line (c, st->line_detail);
+      cairo_stroke (c->cr);
+    }
+
+  /* the collection trough over the middle of the run, across the banks, by convention */
+  wrect (c, xt - tw / 2, 0, xt + tw / 2, W);
+  fill_stroke (c, st->paper, st->equipment, 1.3 * st->line_detail);
+
+  /* flow in through the opening and across the inlet zone to the modules */
+  flow_arrow (c, px (c, -t) - 3.0 * fs, py (c, W / 2), MAX (px (c, x0) - 0.3 * fs, px (c, 0)),
+              py (c, W / 2));
+
+  /* callouts above: the inlet zone on the left, the trough on the right; shortened, then the
+   * right one lifted a line, when the two would meet */
+  {
+    const double row = py (c, W + t) - 2.6 * fs, left = px (c, -t), right = px (c, L + t);
+    g_autofree char *it = fmt_len (c, x0);
+    g_autofree char *il = g_strdup_printf (_("inlet zone, %s (drawn); flow runs under the "
+                                             "modules and up the plates"), it);
+    const char *tl = _("collection trough (drawn by convention)");
+    double lift = 0;
+    if (left + text_width (c, il, fs) + 1.5 * fs > right - text_width (c, tl, fs))
+      {
+        g_free (il);
+        il = g_strdup_printf (_("inlet zone %s"), it);
+        tl = _("trough (by convention)");
+      }
+    if (left + text_width (c, il, fs) + 1.5 * fs > right - text_width (c, tl, fs))
+      lift = 1.3 * fs;
+    callout (c, px (c, 0.5 * x0), py (c, 0.8 * W), left, row, il, 0.0, 1.0);
+    callout (c, px (c, xt), py (c, W - 0.3 * b), right, row - lift, tl, 1.0, 1.0);
+  }
+
+  /* dimensions: one plate's run in plan above; the inlet zone and the modules, then the whole
+   * length below; a bank's width and the whole width on the right */
+  {
+    g_autofree char *rt = fmt_len (c, run);
+    g_autofree char *rl = g_strdup_printf (_("%s in plan"), rt);
+    g_autofree char *it = fmt_len (c, x0);
+    g_autofree char *mt = fmt_len (c, Lm);
+    g_autofree char *lt = fmt_len (c, L);
+    g_autofree char *bt = fmt_len (c, b);
+    g_autofree char *wt = fmt_len (c, W);
+    const double yb = py (c, -t), xr = px (c, L + t);
+    double xw = xr + 1.8 * fs;
+    dim_h (c, px (c, x0), px (c, x0 + run), py (c, W + t), py (c, W + t) - 1.0 * fs, rl);
+    /* the inlet zone's where its figure fits between the arrows (its callout gives it too) */
+    if (text_width (c, it, fs) < c->g.scale * x0 - 0.31 * fs)
+      dim_h (c, px (c, 0), px (c, x0), yb, yb + 1.7 * fs, it);
+    dim_h (c, px (c, x0), px (c, L), yb, yb + 1.7 * fs, mt);
+    dim_h (c, px (c, 0), px (c, L), yb, yb + 3.7 * fs, lt);
+    if (n->banks > 1)
+      {
+        dim_v (c, py (c, W), py (c, W - b), xr, xw, bt);
+        xw += text_width (c, bt, fs) + 1.6 * fs;
+      }
+    dim_v (c, py (c, W), py (c, 0), xr, xw, wt);
+  }
+
+  /* the note under the drawing: the count, the rows drawn and what is assumed */
+  {
+    g_autofree char *note = settler_plan_note (c, n, every);
+    const double x = MAX (px (c, -t), c->ty.pad);
+    text_box (c, x, py (c, -t) + 4.6 * fs, c->w - c->ty.pad - x, note, c->ty.small, FALSE, 3,
+              st->ink);
+  }
+}
+
 /* --- train schematic: the engine's results, not to scale --- */
 
 /* The schematic's columns: a lead-in and lead-out for the flow arrows, NU blocks of width BW
@@ -2733,7 +2962,7 @@ view_title (const Unit *n, BwSketchView view)
   if (n->type == BW_PROCESS_CIRCULAR_CLARIFIER)
     return view == BW_SKETCH_PLAN ? _("plan") : _("section on a diameter");
   if (n->type == BW_PROCESS_PLATE_SETTLER)
-    return _("section across the plates");
+    return view == BW_SKETCH_PLAN ? _("plan") : _("section across the plates");
   if (n->type == BW_PROCESS_RECTANGULAR_BASIN || n->floc != NULL)
     return view == BW_SKETCH_PLAN ? _("plan") : _("longitudinal section");
   return view == BW_SKETCH_PLAN ? _("plan") : _("section on the shaft");
@@ -2810,6 +3039,9 @@ sheet (Ctx *c, const BwProject *p, const BwProcessUnit *u, const Unit *n, BwSket
                                  "depth and launder size are drawn by convention.")
                              : _("To scale from the design inputs; walls, floor slope, feed well "
                                  "size and launder size are drawn by convention."));
+  else if (n->type == BW_PROCESS_PLATE_SETTLER && view == BW_SKETCH_PLAN)
+    drafting = g_strdup (_("To scale from the design inputs; walls, inlet zone, bank layout and "
+                           "trough are drawn by convention."));
   else if (n->type == BW_PROCESS_PLATE_SETTLER)
     drafting = g_strdup (_("To scale from the design inputs, a representative run of channels; the "
                            "tank around them is drawn by convention."));
@@ -2897,7 +3129,7 @@ bw_sketch_paint (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
   else if (n.type == BW_PROCESS_CIRCULAR_CLARIFIER)
     (view == BW_SKETCH_PLAN ? clarifier_plan : clarifier_section) (&c, &n);
   else if (n.type == BW_PROCESS_PLATE_SETTLER)
-    settler_section (&c, &n);
+    (view == BW_SKETCH_PLAN ? settler_plan : settler_section) (&c, &n);
   else if (n.type == BW_PROCESS_RECTANGULAR_BASIN)
     (view == BW_SKETCH_PLAN ? basin_plan : basin_section) (&c, &n);
   else

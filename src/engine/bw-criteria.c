@@ -12,8 +12,14 @@
 static const char *const flow_names[BW_N_FLOW_KINDS] = {
   "minimum", "average-day", "maximum-day", "peak-hour", "future",
 };
+/* Labels are marked for the template only (the engine stays locale-free); the workbench and the
+ * report translate them where they show them. */
+#define N_(s) (s)
+#define NC_(context, s) (s)
+
 static const char *const flow_labels[BW_N_FLOW_KINDS] = {
-  "minimum", "average day", "maximum day", "peak hour", "future",
+  NC_("flow", "minimum"), NC_("flow", "average day"), NC_("flow", "maximum day"),
+  NC_("flow", "peak hour"), NC_("flow", "future"),
 };
 static const char *const temp_names[BW_N_TEMP_KINDS] = { "coldest", "warmest" };
 static const char *const service_names[BW_N_SERVICE_STATES] = { "all-in-service", "firm" };
@@ -22,8 +28,8 @@ static const char *const element_names[BW_N_ELEMENT_TYPES] = {
   "plate-settler", "tube-settler",
 };
 static const char *const element_labels[BW_N_ELEMENT_TYPES] = {
-  "rapid mix", "flocculator", "flocculator stage", "rectangular basin", "circular clarifier",
-  "plate settler", "tube settler",
+  N_("rapid mix"), N_("flocculator"), N_("flocculator stage"), N_("rectangular basin"),
+  N_("circular clarifier"), N_("plate settler"), N_("tube settler"),
 };
 
 static gboolean
@@ -285,10 +291,11 @@ bw_check_status_name (BwCheckStatus s)
 {
   switch (s)
     {
-    case BW_CHECK_PASS: return "pass";
-    case BW_CHECK_WARN: return "warn";
-    case BW_CHECK_FAIL: return "fail";
-    case BW_CHECK_NOT_APPLICABLE: return "n/a";
+    /* TRANSLATORS: the status chip of a criterion check; keep it short. */
+    case BW_CHECK_PASS: return NC_("check", "pass");
+    case BW_CHECK_WARN: return NC_("check", "warn");
+    case BW_CHECK_FAIL: return NC_("check", "fail");
+    case BW_CHECK_NOT_APPLICABLE: return NC_("check", "n/a");
     default: return "unknown";
     }
 }

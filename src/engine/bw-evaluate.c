@@ -439,11 +439,13 @@ bw_evaluate_unit_case (const BwProcessUnit *u, double q, const BwWater *w, BwQua
 }
 
 /* What the coagulant adds to a unit's results: the rapid mix receives the feed at the maximum
- * dose (what the feed system must deliver) and the alkalinity it leaves; a settling unit collects
- * the sludge of the design dose (Cornwell et al. 1987, from memory; see bw-chemistry.c). */
-static void
+ * dose (what the feed system must deliver), as liquid stock too when its strength and density are
+ * given, and the alkalinity it leaves; a settling unit collects the sludge of the design dose
+ * (Cornwell et al. 1987, from memory; see bw-chemistry.c), and its volume when the solids content
+ * is given. */
+static gboolean
 add_chemistry (const BwProject *p, const BwCoagulant *co, BwElementType type, double q,
-               BwQuantitySet *s)
+               BwQuantitySet *s, GError **error)
 {
   const BwChemistryBasis *c = &p->chemistry;
 
@@ -453,11 +455,42 @@ add_chemistry (const BwProject *p, const BwCoagulant *co, BwElementType type, do
       if (p->basis.alkalinity_kg_m3 > 0)
         bw_quantity_set_put (s, BW_Q_RESIDUAL_ALKALINITY,
                              p->basis.alkalinity_kg_m3 - co->alkalinity_factor * c->dose_max_kg_m3);
+      if (c->stock_fraction > 0 && c->stock_density_kg_m3 > 0)
+        {
+          /* Liquid stock, m3/s: dry feed (kg/s) / (strength g/g x density kg/m3), a mass
+           * balance (bw_dosing_evaluate). */
+          BwDosing d;
+          BwDosingResult r;
+          bw_dosing_init (&d, c->dose_max_kg_m3, q);
+          d.solution_fraction = c->stock_fraction;
+          d.solution_density_kg_m3 = c->stock_density_kg_m3;
+          if (!bw_dosing_evaluate (co, &d, &r, error))
+            return FALSE;
+          bw_quantity_set_put (s, BW_Q_COAGULANT_SOLUTION, r.solution_m3_s);
+        }
     }
   else if (type == BW_ELEMENT_RECTANGULAR_BASIN || type == BW_ELEMENT_CIRCULAR_CLARIFIER
            || type == BW_ELEMENT_PLATE_SETTLER || type == BW_ELEMENT_TUBE_SETTLER)
-    bw_quantity_set_put (s, BW_Q_SLUDGE, q * (co->sludge_factor * c->dose_design_kg_m3
-                                              + c->ss_factor * p->basis.turbidity_NTU * 1e-3));
+    {
+      bw_quantity_set_put (s, BW_Q_SLUDGE, q * (co->sludge_factor * c->dose_design_kg_m3
+                                                + c->ss_factor * p->basis.turbidity_NTU * 1e-3));
+      if (c->sludge_solids_fraction > 0)
+        {
+          /* Sludge volume, m3/s, at its solids content: dry mass over the sludge's bulk density
+           * from its water and solids (bw_dosing_evaluate; Metcalf & Eddy, from memory). */
+          BwDosing d;
+          BwDosingResult r;
+          bw_dosing_init (&d, c->dose_design_kg_m3, q);
+          d.turbidity_NTU = p->basis.turbidity_NTU;
+          d.ss_factor = c->ss_factor;
+          d.solids_fraction = c->sludge_solids_fraction;
+          if (!bw_dosing_evaluate (co, &d, &r, error))
+            return FALSE;
+          if (r.has_sludge_volume)
+            bw_quantity_set_put (s, BW_Q_SLUDGE_VOLUME, r.sludge_m3_s);
+        }
+    }
+  return TRUE;
 }
 
 BwResults *
@@ -524,8 +557,9 @@ bw_project_evaluate (const BwProject *p, GError **error)
               }
               if (!ok)
                 return prefix_error (error, u->id), NULL;
-              if (p->chemistry.enabled)
-                add_chemistry (p, &coagulant, e->type, q, &e->values[c]);
+              if (p->chemistry.enabled
+                  && !add_chemistry (p, &coagulant, e->type, q, &e->values[c], error))
+                return prefix_error (error, "chemistry"), NULL;
               if (!all_finite (&e->values[c]))
                 {
                   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,

@@ -250,6 +250,27 @@ bw_project_column_test_for (const BwProject *p, const char *unit_id)
   return NULL;
 }
 
+static const char *const alkali_names[BW_N_ALKALIS] = { "lime", "soda-ash" };
+
+const char *
+bw_alkali_kind_name (BwAlkaliKind k)
+{
+  g_return_val_if_fail ((guint) k < BW_N_ALKALIS, "unknown");
+  return alkali_names[k];
+}
+
+gboolean
+bw_alkali_kind_from_name (const char *name, BwAlkaliKind *out)
+{
+  for (int i = 0; i < BW_N_ALKALIS; i++)
+    if (g_strcmp0 (alkali_names[i], name) == 0)
+      {
+        *out = (BwAlkaliKind) i;
+        return TRUE;
+      }
+  return FALSE;
+}
+
 gboolean
 bw_project_coagulant (const BwProject *p, BwCoagulant *out, GError **error)
 {
@@ -668,6 +689,14 @@ validate_column_tests (const BwProject *p, GError **error)
   return TRUE;
 }
 
+/* An optional input: 0 means not given, anything else must lie in LO..HI. */
+static gboolean
+check_optional (double value, double lo, double hi, const char *field, const char *unit,
+                GError **error)
+{
+  return value == 0 || bw_check_range (value, lo, hi, field, unit, error);
+}
+
 gboolean
 bw_project_validate (const BwProject *p, GError **error)
 {
@@ -737,8 +766,21 @@ bw_project_validate (const BwProject *p, GError **error)
           || !bw_check_range (c->dose_max_kg_m3, 0, 1, "maximum dose", "kg/m³", error)
           || !bw_check_range (c->ss_factor, 0, 10, "suspended solids factor", "mg/L per NTU", error)
           || !bw_check_range (c->residual_target_kg_m3, 0, 2, "residual alkalinity target", "kg/m³", error)
+          || !check_optional (c->stock_fraction, 1e-4, 1, "stock solution strength", "g/g",
+                              error)
+          || !check_optional (c->stock_density_kg_m3, 500, 3000, "stock solution density",
+                              "kg/m³", error)
+          || !check_optional (c->sludge_solids_fraction, 1e-4, 0.6, "sludge solids content", "g/g",
+                              error)
+          || !check_optional (c->target_NTU, 0, 1e4, "target settled turbidity", "NTU", error)
           || !bw_project_coagulant (p, &co, error))
         return FALSE;
+      if ((guint) c->alkali >= BW_N_ALKALIS)
+        {
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                       "alkali supplement: must be lime or soda ash");
+          return FALSE;
+        }
       if (c->dose_min_kg_m3 > c->dose_design_kg_m3 || c->dose_design_kg_m3 > c->dose_max_kg_m3)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
@@ -889,7 +931,10 @@ bw_project_equal (const BwProject *a, const BwProject *b)
         || c->al2o3_fraction != d->al2o3_fraction || c->basicity != d->basicity
         || c->dose_min_kg_m3 != d->dose_min_kg_m3 || c->dose_design_kg_m3 != d->dose_design_kg_m3
         || c->dose_max_kg_m3 != d->dose_max_kg_m3 || c->ss_factor != d->ss_factor
-        || c->residual_target_kg_m3 != d->residual_target_kg_m3 || g_strcmp0 (c->jar_test, d->jar_test))
+        || c->residual_target_kg_m3 != d->residual_target_kg_m3 || g_strcmp0 (c->jar_test, d->jar_test)
+        || c->stock_fraction != d->stock_fraction || c->stock_density_kg_m3 != d->stock_density_kg_m3
+        || c->alkali != d->alkali || c->sludge_solids_fraction != d->sludge_solids_fraction
+        || c->target_NTU != d->target_NTU)
       return FALSE;
   }
   if (a->jar_tests->len != b->jar_tests->len)

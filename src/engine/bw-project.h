@@ -44,8 +44,19 @@ typedef struct
   double ph;
 } BwDesignBasis;
 
+/* The alkali fed to keep the residual alkalinity target. */
+typedef enum
+{
+  BW_ALKALI_LIME,     /* hydrated lime, Ca(OH)2 */
+  BW_ALKALI_SODA_ASH, /* soda ash, Na2CO3 */
+  BW_N_ALKALIS
+} BwAlkaliKind;
+
+const char *bw_alkali_kind_name (BwAlkaliKind k); /* "lime", "soda-ash" (file keywords) */
+gboolean bw_alkali_kind_from_name (const char *name, BwAlkaliKind *out);
+
 /* The coagulant and its dose range, which the rapid mix receives and whose sludge the settling
- * units collect. */
+ * units collect. The optional fields hold 0 when not given. */
 typedef struct
 {
   gboolean enabled;
@@ -59,6 +70,11 @@ typedef struct
   double ss_factor;             /* mg/L of suspended solids per NTU */
   double residual_target_kg_m3; /* alkalinity as CaCO3 to keep; 0 for none */
   char *jar_test;               /* id of the jar-test series the dose was chosen from, or NULL */
+  double stock_fraction;        /* liquid stock strength, g product per g solution; 0: dry feed */
+  double stock_density_kg_m3;   /* liquid stock density; 0 for none */
+  BwAlkaliKind alkali;          /* fed when the residual falls below the target (lime default) */
+  double sludge_solids_fraction; /* settled sludge solids content, g/g, for its volume; 0: none */
+  double target_NTU;            /* settled turbidity the jar-test dose must reach; 0 for none */
 } BwChemistryBasis;
 
 /* A jar-test series kept with the project. */

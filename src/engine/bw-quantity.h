@@ -41,6 +41,8 @@ typedef enum
   BW_Q_COAGULANT_FEED,         /* kg/s of coagulant product into one unit, at the maximum dose */
   BW_Q_RESIDUAL_ALKALINITY,    /* kg/m3 as CaCO3 left after the maximum dose */
   BW_Q_SLUDGE,                 /* kg/s of dry sludge settling in one basin, at the design dose */
+  BW_Q_COAGULANT_SOLUTION,     /* m3/s of liquid stock into one unit, at the maximum dose */
+  BW_Q_SLUDGE_VOLUME,          /* m3/s of settled sludge at its solids content, design dose */
   BW_N_QUANTITIES
 } BwQuantity;
 

@@ -11,6 +11,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "draw/bw-labels.h"
 #include "engine/bw-edit.h"
 #include "engine/bw-error.h"
 #include "engine/bw-units.h"
@@ -242,7 +243,7 @@ format_param (const BwParamSpec *spec, double v, BwUnitSystem units)
       while (spec->choices[n])
         n++;
       if (v >= 0 && v < n)
-        return g_strdup (spec->choices[(guint) v]);
+        return g_strdup (bw_label_choice (spec, (int) v));
     }
   return g_strdup_printf ("%.0f", v);
 }
@@ -279,7 +280,7 @@ append_values (GString *s, const BwAutosizeResult *r, const BwProcessUnit *u, in
         g_string_append_printf (s, s->len ? _("; stage %d: ") : _("stage %d: "), stage + 1);
       else if (!first || s->len)
         g_string_append (s, ", ");
-      g_string_append_printf (s, "%s %s", specs[k].label, v);
+      g_string_append_printf (s, "%s %s", bw_label_text (specs[k].label), v);
       first = FALSE;
     }
 }
@@ -444,7 +445,7 @@ refresh_labels (BwAutosizeDialog *self)
   if (u)
     {
       heading = g_strdup_printf (_("Auto-size %s"), u->name ? u->name : u->id);
-      unit = g_strdup_printf ("%s (%s, %s)", u->name ? u->name : u->id, bw_process_type_label (u->type), u->id);
+      unit = g_strdup_printf ("%s (%s, %s)", u->name ? u->name : u->id, bw_label_process_type (u->type), u->id);
     }
   else
     {
@@ -574,10 +575,15 @@ search_done (GObject *source, GAsyncResult *res, gpointer data)
         m = g_strdup (_("The project changed during the search: the designs listed are for the earlier "
                         "state. Search again to size the unit as it is now."));
       else
-        m = g_strdup_printf (_("%" G_GUINT64_FORMAT " designs tried, %" G_GUINT64_FORMAT " pass every "
-                               "required criterion in every load case; the best %u are listed. "
-                               "Choose one and apply it."),
-                             self->result.candidates, self->result.passing, self->result.n_best);
+        {
+          /* The counts as text first: a G_GUINT64_FORMAT inside the message would cut the msgid
+           * short for xgettext. */
+          g_autofree char *tried = g_strdup_printf ("%" G_GUINT64_FORMAT, self->result.candidates);
+          g_autofree char *passing = g_strdup_printf ("%" G_GUINT64_FORMAT, self->result.passing);
+          m = g_strdup_printf (_("%s designs tried, %s pass every required criterion in every load "
+                                 "case; the best %u are listed. Choose one and apply it."),
+                               tried, passing, self->result.n_best);
+        }
       set_message (self, m);
       results_rebuild (self);
     }
@@ -637,6 +643,7 @@ bw_autosize_dialog_search (BwAutosizeDialog *self)
   g_task_set_task_data (task, g_atomic_rc_box_acquire (job), job_release);
   g_task_set_name (task, "bw-autosize");
   gtk_progress_bar_set_fraction (self->progress_bar, 0);
+  /* xgettext:no-c-format */
   gtk_progress_bar_set_text (self->progress_bar, _("0 % searched"));
   {
     g_autofree char *m = g_strdup_printf (_("Searching for the %s against %s, on a copy of the project…"),

@@ -39,6 +39,10 @@ typedef enum
   CF_DOSE_MAX,
   CF_SS,
   CF_RESIDUAL,
+  CF_ALKALI,
+  CF_STOCK_STRENGTH,
+  CF_STOCK_DENSITY,
+  CF_SLUDGE_SOLIDS,
   N_CF
 } ChemFieldId;
 
@@ -50,6 +54,7 @@ typedef struct
   const char *unit_note; /* shown after the entry when the kind has no unit of its own */
   const char *help;
   const char *edit_label;
+  gboolean optional;     /* empty means not given (held as 0) */
 } ChemFieldInfo;
 
 static const ChemFieldInfo cf_info[N_CF] = {
@@ -81,7 +86,27 @@ static const ChemFieldInfo cf_info[N_CF] = {
                     N_("as CaCO₃"),
                     N_("Alkalinity as CaCO₃ to keep after coagulation; 0 for none"),
                     N_("Set the residual alkalinity target") },
+  [CF_ALKALI] = { "alkali", N_("alkali supplement"), BW_KIND_NUMBER, NULL,
+                  N_("What is fed when the residual alkalinity would fall below the target"),
+                  N_("Set the alkali supplement") },
+  [CF_STOCK_STRENGTH] = { "stock-strength", N_("stock solution strength"), BW_KIND_FRACTION,
+                          N_("as the product dosed"),
+                          N_("Mass fraction of the coagulant product in the liquid stock as "
+                             "delivered (liquid alum is often near 48 %); empty for dry feed only"),
+                          N_("Set the stock solution strength"), TRUE },
+  [CF_STOCK_DENSITY] = { "stock-density", N_("stock solution density"), BW_KIND_DENSITY, NULL,
+                         N_("Density of the liquid stock, from the supplier's data sheet; empty "
+                            "for none"),
+                         N_("Set the stock solution density"), TRUE },
+  [CF_SLUDGE_SOLIDS] = { "sludge-solids", N_("sludge solids content"), BW_KIND_FRACTION, NULL,
+                         N_("Dry solids in the settled sludge as withdrawn, mass fraction (often "
+                            "0.5 to 2 %); empty for none"),
+                         N_("Set the sludge solids content"), TRUE },
 };
+
+/* Alkali supplements in dropdown order (BwAlkaliKind). */
+static const char *const alkali_labels[BW_N_ALKALIS] = { N_("lime, Ca(OH)₂"),
+                                                         N_("soda ash, Na₂CO₃") };
 
 /* Coagulant kinds a project takes, in dropdown order (bw_project_coagulant refuses the rest). */
 static const BwCoagulantKind kinds[] = { BW_COAGULANT_ALUM, BW_COAGULANT_FERRIC_CHLORIDE,
@@ -104,6 +129,7 @@ typedef struct
 struct _BwChemView
 {
   GtkBox parent_instance;
+  gboolean stale;            /* the project changed while the page was out of sight */
 
   /* Template widgets */
   GtkLabel *caution_label;
@@ -130,7 +156,7 @@ struct _BwChemView
   /* Owned */
   ChemField fields[N_CF];
   char *selected_id;   /* jar-test record shown */
-  double target_NTU;   /* < 0: none (a view option, not project data) */
+  gboolean target_flagged;
   gboolean updating;
   guint paints;
   GtkFileChooserNative *chooser;
@@ -139,6 +165,8 @@ struct _BwChemView
 G_DEFINE_FINAL_TYPE (BwChemView, bw_chem_view, GTK_TYPE_BOX)
 
 static void refresh (BwChemView *self);
+static void target_refresh (BwChemView *self);
+static void target_unflag (BwChemView *self);
 
 /* --- helpers --- */
 
@@ -170,6 +198,9 @@ cf_slot (BwChemistryBasis *c, ChemFieldId which)
     case CF_DOSE_MAX: return &c->dose_max_kg_m3;
     case CF_SS: return &c->ss_factor;
     case CF_RESIDUAL: return &c->residual_target_kg_m3;
+    case CF_STOCK_STRENGTH: return &c->stock_fraction;
+    case CF_STOCK_DENSITY: return &c->stock_density_kg_m3;
+    case CF_SLUDGE_SOLIDS: return &c->sludge_solids_fraction;
     default: return NULL;
     }
 }
@@ -220,13 +251,21 @@ field_unflag (ChemField *f)
   unflag_widget (f->widget, f->error_label, _(cf_info[f->which].help));
 }
 
+/* The project's target settled turbidity as the engine takes it: < 0 for none. */
+static double
+target_of (BwChemView *self)
+{
+  const double t = project (self)->chemistry.target_NTU;
+  return t > 0 ? t : -1;
+}
+
 static char *
 field_text (ChemField *f)
 {
   BwChemistryBasis c = project (f->view)->chemistry;
   double *v = cf_slot (&c, f->which);
 
-  if (v == NULL)
+  if (v == NULL || (cf_info[f->which].optional && *v == 0))
     return g_strdup ("");
   if (cf_info[f->which].kind == BW_KIND_NUMBER)
     return bw_format_number (*v, 4);
@@ -287,7 +326,7 @@ entry_commit (ChemField *f)
         field_unflag (f);
       return;
     }
-  if (text[0] == '\0')
+  if (text[0] == '\0' && !info->optional)
     {
       g_autofree char *msg = g_strdup_printf (_("%s: a value is needed"), _(info->label));
       field_flag (f, msg);
@@ -296,9 +335,19 @@ entry_commit (ChemField *f)
   du = info->kind == BW_KIND_NUMBER ? NULL
                                     : bw_units_display_unit (info->kind,
                                                              bw_window_get_unit_system (self->window));
-  if (!bw_units_parse (text, info->kind, du ? du->ascii : NULL, _(info->label), &v, &error))
+  if (text[0] == '\0')
+    v = 0; /* an optional input left empty: not given */
+  else if (!bw_units_parse (text, info->kind, du ? du->ascii : NULL, _(info->label), &v, &error))
     {
       field_flag (f, error->message);
+      return;
+    }
+  else if (info->optional && v == 0)
+    {
+      /* 0 is how the model holds "not given": say so rather than take it silently. */
+      g_autofree char *msg = g_strdup_printf (_("%s: must be above zero; leave it empty for "
+                                                "none"), _(info->label));
+      field_flag (f, msg);
       return;
     }
   copy = bw_project_copy (project (self));
@@ -355,6 +404,22 @@ kind_changed (GtkDropDown *dd, GParamSpec *pspec, gpointer data)
   apply_copy (self, copy, _(cf_info[CF_KIND].edit_label), f, NULL);
 }
 
+static void
+alkali_changed (GtkDropDown *dd, GParamSpec *pspec, gpointer data)
+{
+  ChemField *f = data;
+  BwChemView *self = f->view;
+  const guint i = gtk_drop_down_get_selected (dd);
+  BwProject *copy;
+
+  (void) pspec;
+  if (self->updating || i >= BW_N_ALKALIS)
+    return;
+  copy = bw_project_copy (project (self));
+  copy->chemistry.alkali = (BwAlkaliKind) i;
+  apply_copy (self, copy, _(cf_info[CF_ALKALI].edit_label), f, NULL);
+}
+
 static int
 attach_field (BwChemView *self, int row, ChemFieldId which)
 {
@@ -379,6 +444,16 @@ attach_field (BwChemView *self, int row, ChemFieldId which)
       f->widget = gtk_drop_down_new_from_strings (labels);
       f->label = gtk_label_new (_(info->label));
       g_signal_connect (f->widget, "notify::selected", G_CALLBACK (kind_changed), f);
+    }
+  else if (which == CF_ALKALI)
+    {
+      const char *labels[BW_N_ALKALIS + 1];
+      for (guint i = 0; i < BW_N_ALKALIS; i++)
+        labels[i] = _(alkali_labels[i]);
+      labels[BW_N_ALKALIS] = NULL;
+      f->widget = gtk_drop_down_new_from_strings (labels);
+      f->label = gtk_label_new (_(info->label));
+      g_signal_connect (f->widget, "notify::selected", G_CALLBACK (alkali_changed), f);
     }
   else
     {
@@ -427,6 +502,9 @@ field_refresh (ChemField *f)
         if (kinds[i] == c->kind)
           gtk_drop_down_set_selected (GTK_DROP_DOWN (f->widget), i);
       break;
+    case CF_ALKALI:
+      gtk_drop_down_set_selected (GTK_DROP_DOWN (f->widget), (guint) c->alkali);
+      break;
     default:
       if (f->which == CF_HYDRATE)
         shown = c->kind == BW_COAGULANT_ALUM;
@@ -446,8 +524,10 @@ field_refresh (ChemField *f)
         g_autofree char *unit = g_strdup_printf ("%s%s%s", du ? du->symbol : "",
                                                  du && info->unit_note ? " " : "",
                                                  info->unit_note ? _(info->unit_note) : "");
-        g_autofree char *ph = du ? g_strdup_printf (_("number, unit optional (%s)"), du->symbol)
-                                 : g_strdup (_("a number"));
+        g_autofree char *ph = du && info->optional
+                                ? g_strdup_printf (_("none, or a number (%s)"), du->symbol)
+                              : du ? g_strdup_printf (_("number, unit optional (%s)"), du->symbol)
+                                   : g_strdup (_("a number"));
         gtk_label_set_text (GTK_LABEL (f->unit_label), unit);
         gtk_entry_set_placeholder_text (GTK_ENTRY (f->widget), ph);
       }
@@ -480,10 +560,10 @@ cell (GtkGrid *grid, int col, int row, const char *text, gboolean head)
   gtk_label_set_selectable (GTK_LABEL (l), !head);
   if (head)
     {
-      /* Headings wrap, so the tables fit the page at 1024 px. */
+      /* Headings wrap, so the tables (nine columns by plant flow) fit the page at 1024 px. */
       gtk_widget_add_css_class (l, "bw-col-head");
       gtk_label_set_wrap (GTK_LABEL (l), TRUE);
-      gtk_label_set_max_width_chars (GTK_LABEL (l), 13);
+      gtk_label_set_max_width_chars (GTK_LABEL (l), 10);
       gtk_label_set_justify (GTK_LABEL (l), col == 0 ? GTK_JUSTIFY_LEFT : GTK_JUSTIFY_RIGHT);
       gtk_widget_set_valign (l, GTK_ALIGN_END);
     }
@@ -498,6 +578,42 @@ cell_q (GtkGrid *grid, int col, int row, double si, BwQuantityKind kind, BwChemV
   cell (grid, col, row, t, FALSE);
 }
 
+/* A flow read in the unit a feed pump or a sludge line is rated in: SI_UNIT (L/h, m³/d) or, in
+ * US units, US_UNIT (gph, gpd); never a non-finite value. */
+static char *
+fmt_flow_in (double si, const char *si_unit, const char *us_unit, BwChemView *self)
+{
+  const gboolean us = bw_window_get_unit_system (self->window) == BW_UNIT_SYSTEM_US;
+  const BwUnit *u = bw_unit_lookup (us ? us_unit : si_unit, BW_KIND_FLOW, "flow", NULL);
+  g_autofree char *n = NULL;
+
+  if (!isfinite (si) || u == NULL)
+    return g_strdup ("—");
+  n = bw_format_number (bw_unit_from_si (u, si), 4);
+  return g_strdup_printf ("%s %s", n, u->symbol);
+}
+
+static void
+cell_flow_in (GtkGrid *grid, int col, int row, double si, const char *si_unit,
+              const char *us_unit, BwChemView *self)
+{
+  g_autofree char *t = fmt_flow_in (si, si_unit, us_unit, self);
+  cell (grid, col, row, t, FALSE);
+}
+
+/* The chosen alkali's dose and feed in a dosing result. */
+static double
+alkali_kg_m3 (const BwChemistryBasis *c, const BwDosingResult *d)
+{
+  return c->alkali == BW_ALKALI_SODA_ASH ? d->soda_ash_kg_m3 : d->lime_kg_m3;
+}
+
+static double
+alkali_kg_s (const BwChemistryBasis *c, const BwDosingResult *d)
+{
+  return c->alkali == BW_ALKALI_SODA_ASH ? d->soda_ash_kg_s : d->lime_kg_s;
+}
+
 static gboolean
 dosing (BwChemView *self, const BwCoagulant *co, double dose, double flow, BwDosingResult *out)
 {
@@ -509,6 +625,13 @@ dosing (BwChemView *self, const BwCoagulant *co, double dose, double flow, BwDos
   d.residual_target_kg_m3 = p->chemistry.residual_target_kg_m3;
   d.turbidity_NTU = p->basis.turbidity_NTU;
   d.ss_factor = p->chemistry.ss_factor;
+  if (p->chemistry.stock_fraction > 0 && p->chemistry.stock_density_kg_m3 > 0)
+    {
+      d.solution_fraction = p->chemistry.stock_fraction;
+      d.solution_density_kg_m3 = p->chemistry.stock_density_kg_m3;
+    }
+  if (p->chemistry.sludge_solids_fraction > 0)
+    d.solids_fraction = p->chemistry.sludge_solids_fraction;
   return bw_dosing_evaluate (co, &d, out, NULL);
 }
 
@@ -545,8 +668,8 @@ results_rebuild (BwChemView *self)
   cell (g, 1, row, "", TRUE);
   cell (g, 2, row, _("Alkalinity consumed"), TRUE);
   cell (g, 3, row, _("Residual alkalinity"), TRUE);
-  cell (g, 4, row, _("Lime Ca(OH)₂ to keep the target"), TRUE);
-  cell (g, 5, row, _("or soda ash Na₂CO₃"), TRUE);
+  cell (g, 4, row, c->alkali == BW_ALKALI_SODA_ASH ? _("Soda ash Na₂CO₃ to keep the target")
+                                                    : _("Lime Ca(OH)₂ to keep the target"), TRUE);
   row++;
   for (guint k = 0; k < 3; k++)
     {
@@ -560,16 +683,15 @@ results_rebuild (BwChemView *self)
             cell_q (g, 3, row, d.residual_alkalinity_kg_m3, BW_KIND_CONCENTRATION, self);
           else
             cell (g, 3, row, _("raw alkalinity not given"), FALSE);
-          cell_q (g, 4, row, d.lime_kg_m3, BW_KIND_CONCENTRATION, self);
-          cell_q (g, 5, row, d.soda_ash_kg_m3, BW_KIND_CONCENTRATION, self);
+          cell_q (g, 4, row, alkali_kg_m3 (c, &d), BW_KIND_CONCENTRATION, self);
           if (k == 2 && (d.cautions & BW_CHEM_CAUTION_ALKALINITY_EXHAUSTED))
             g_string_append (note, _("Caution: the maximum dose consumes more alkalinity than the "
-                                     "raw water holds; the pH will collapse without lime or soda "
-                                     "ash. "));
+                                     "raw water holds; the pH will collapse without the alkali "
+                                     "supplement. "));
           else if (k == 2 && (d.cautions & BW_CHEM_CAUTION_LOW_RESIDUAL))
             g_string_append (note, _("Caution: at the maximum dose the residual alkalinity falls "
-                                     "below the target and the pH will drop; feed the lime or soda "
-                                     "ash shown. "));
+                                     "below the target and the pH will drop; feed the alkali "
+                                     "shown. "));
         }
       row++;
     }
@@ -581,8 +703,11 @@ results_rebuild (BwChemView *self)
   cell (g, 2, row, _("Dry feed, minimum dose"), TRUE);
   cell (g, 3, row, _("design dose"), TRUE);
   cell (g, 4, row, _("maximum dose"), TRUE);
-  cell (g, 5, row, _("Lime at maximum dose"), TRUE);
-  cell (g, 6, row, _("Dry sludge, design dose"), TRUE);
+  cell (g, 5, row, _("Liquid feed, maximum dose"), TRUE);
+  cell (g, 6, row, c->alkali == BW_ALKALI_SODA_ASH ? _("Soda ash at maximum dose")
+                                                    : _("Lime at maximum dose"), TRUE);
+  cell (g, 7, row, _("Dry sludge, design dose"), TRUE);
+  cell (g, 8, row, _("Sludge volume, design dose"), TRUE);
   row++;
   for (int fk = 0; fk < BW_N_FLOW_KINDS; fk++)
     {
@@ -599,9 +724,13 @@ results_rebuild (BwChemView *self)
         {
           for (guint k = 0; k < 3; k++)
             cell_q (g, 2 + (int) k, row, d[k].feed_kg_s, BW_KIND_MASS_FLOW, self);
-          cell_q (g, 5, row, d[2].lime_kg_s, BW_KIND_MASS_FLOW, self);
+          if (d[2].solution_m3_s > 0)
+            cell_flow_in (g, 5, row, d[2].solution_m3_s, "L/h", "gph", self);
+          cell_q (g, 6, row, alkali_kg_s (c, &d[2]), BW_KIND_MASS_FLOW, self);
           if (d[1].has_sludge)
-            cell_q (g, 6, row, d[1].sludge_kg_s, BW_KIND_MASS_FLOW, self);
+            cell_q (g, 7, row, d[1].sludge_kg_s, BW_KIND_MASS_FLOW, self);
+          if (d[1].has_sludge_volume)
+            cell_flow_in (g, 8, row, d[1].sludge_m3_s, "m3/d", "gpd", self);
         }
       row++;
     }
@@ -616,6 +745,8 @@ results_rebuild (BwChemView *self)
       cell (g, 2, row, _("Coagulant feed, maximum dose"), TRUE);
       cell (g, 3, row, _("Residual alkalinity"), TRUE);
       cell (g, 4, row, _("Dry sludge, design dose"), TRUE);
+      cell (g, 5, row, _("Liquid feed, maximum dose"), TRUE);
+      cell (g, 6, row, _("Sludge volume, design dose"), TRUE);
       row++;
       for (guint i = 0; dc >= 0 && i < r->elements->len; i++)
         {
@@ -633,6 +764,10 @@ results_rebuild (BwChemView *self)
             cell_q (g, 3, row, s->values[BW_Q_RESIDUAL_ALKALINITY], BW_KIND_CONCENTRATION, self);
           if (sludge)
             cell_q (g, 4, row, s->values[BW_Q_SLUDGE], BW_KIND_MASS_FLOW, self);
+          if (bw_quantity_set_has (s, BW_Q_COAGULANT_SOLUTION))
+            cell_flow_in (g, 5, row, s->values[BW_Q_COAGULANT_SOLUTION], "L/h", "gph", self);
+          if (bw_quantity_set_has (s, BW_Q_SLUDGE_VOLUME))
+            cell_flow_in (g, 6, row, s->values[BW_Q_SLUDGE_VOLUME], "m3/d", "gpd", self);
           row++;
         }
     }
@@ -640,11 +775,16 @@ results_rebuild (BwChemView *self)
     g_autofree char *alk = fmt (p->basis.alkalinity_kg_m3, BW_KIND_CONCENTRATION, self);
     g_autofree char *tu = fmt (p->basis.turbidity_NTU, BW_KIND_TURBIDITY, self);
     g_string_append_printf (note, _("Raw water (design basis page): alkalinity %s as CaCO₃, "
-                                    "turbidity %s. Alkalinity and lime are per litre of water "
-                                    "treated. The liquid feed (L/h) and the sludge volume (m³/d) "
-                                    "need the stock solution strength and density and the sludge "
-                                    "solids content, which the project does not hold yet."),
-                            alk, tu);
+                                    "turbidity %s. Alkalinity and alkali are per litre of water "
+                                    "treated."), alk, tu);
+    if (!(c->stock_fraction > 0 && c->stock_density_kg_m3 > 0))
+      g_string_append (note, _(" The liquid feed is shown once the stock solution strength and "
+                               "density are both given."));
+    if (!(c->sludge_solids_fraction > 0))
+      g_string_append (note, _(" The sludge volume is shown once the sludge solids content is "
+                               "given."));
+    else
+      g_string_append (note, _(" The sludge volume takes a dry-solids specific gravity of 1.4."));
   }
   gtk_label_set_text (self->results_note, note->str);
 }
@@ -756,7 +896,7 @@ record_rebuild (BwChemView *self)
   grid_clear (g);
   if (r == NULL)
     return;
-  if (!analyse (r, self->target_NTU, &s, &res, &error))
+  if (!analyse (r, target_of (self), &s, &res, &error))
     {
       gtk_label_set_text (self->fit_label, error->message);
       gtk_widget_set_sensitive (GTK_WIDGET (self->use_button), FALSE);
@@ -792,9 +932,9 @@ record_rebuild (BwChemView *self)
     g_autofree char *temp = bw_units_format (r->temperature_K, BW_KIND_TEMPERATURE, us);
     g_string_append_printf (t, _("Tested at %s.\nOptimum (least settled turbidity): %s, %s."),
                             temp, od, ot);
-    if (self->target_NTU >= 0)
+    if (target_of (self) > 0)
       {
-        g_autofree char *tt = bw_units_format (self->target_NTU, BW_KIND_TURBIDITY, us);
+        g_autofree char *tt = bw_units_format (target_of (self), BW_KIND_TURBIDITY, us);
         if (res.has_target)
           {
             g_autofree char *td = bw_units_format (res.target_dose_kg_m3, BW_KIND_CONCENTRATION, us);
@@ -827,6 +967,7 @@ refresh (BwChemView *self)
   self->updating = TRUE;
   for (guint i = 0; i < N_CF; i++)
     field_refresh (&self->fields[i]);
+  target_refresh (self);
   self->updating = FALSE;
   results_rebuild (self);
   jar_list_rebuild (self);
@@ -844,7 +985,28 @@ project_changed (BwWindow *w, gboolean structure, gpointer data)
   for (guint i = 0; i < N_CF; i++)
     if (self->fields[i].flagged && self->fields[i].widget)
       field_unflag (&self->fields[i]);
+  if (self->target_flagged)
+    target_unflag (self);
+  /* Out of sight, the tables wait (an edit elsewhere stays quick); they are rebuilt when shown. */
+  if (!gtk_widget_get_mapped (GTK_WIDGET (self)))
+    {
+      self->stale = TRUE;
+      return;
+    }
   refresh (self);
+}
+
+static void
+view_mapped (GtkWidget *widget, gpointer data)
+{
+  BwChemView *self = data;
+
+  (void) widget;
+  if (self->stale)
+    {
+      self->stale = FALSE;
+      refresh (self);
+    }
 }
 
 /* A unique record id from a file name: "jt-" and its stem, letters, digits and '-' only. */
@@ -986,7 +1148,7 @@ bw_chem_view_use_dose (BwChemView *self, GError **error)
                    "jar test: none is selected");
       return FALSE;
     }
-  if (!analyse (r, self->target_NTU, &s, &res, error))
+  if (!analyse (r, target_of (self), &s, &res, error))
     return FALSE;
   copy = bw_project_copy (project (self));
   c = &copy->chemistry;
@@ -1009,37 +1171,89 @@ use_clicked (GtkButton *b, gpointer data)
   bw_chem_view_use_dose (data, NULL);
 }
 
+#define TARGET_HELP N_("The settled turbidity the dose must reach, NTU, for the chart and “Use " \
+                            "this dose”; saved with the project, empty for none")
+
+/* The target entry's text for the project's target: empty for none. */
+static char *
+target_text (BwChemView *self)
+{
+  const double t = project (self)->chemistry.target_NTU;
+  return t > 0 ? bw_format_number (t, 4) : g_strdup ("");
+}
+
+static void
+target_refresh (BwChemView *self)
+{
+  g_autofree char *text = target_text (self);
+
+  if (!self->target_flagged
+      && g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->target_entry)), text) != 0)
+    gtk_editable_set_text (GTK_EDITABLE (self->target_entry), text);
+}
+
+static void
+target_flag (BwChemView *self, const char *message)
+{
+  self->target_flagged = TRUE;
+  flag_widget (GTK_WIDGET (self->target_entry), GTK_WIDGET (self->target_error_label), message);
+}
+
+static void
+target_unflag (BwChemView *self)
+{
+  self->target_flagged = FALSE;
+  unflag_widget (GTK_WIDGET (self->target_entry), GTK_WIDGET (self->target_error_label),
+                 _(TARGET_HELP));
+}
+
+/* A typed target becomes one snapshot edit of the project (undoable, validated by the window). */
 static void
 target_commit (BwChemView *self)
 {
-  g_autofree char *text = g_strstrip (g_strdup (gtk_editable_get_text (GTK_EDITABLE (self->target_entry))));
+  GtkEditable *entry = GTK_EDITABLE (self->target_entry);
+  g_autofree char *text = g_strstrip (g_strdup (gtk_editable_get_text (entry)));
+  g_autofree char *now = NULL;
   g_autoptr (GError) error = NULL;
-  GtkWidget *e = GTK_WIDGET (self->target_entry);
-  double v = -1;
+  BwProject *copy;
+  BwEdit *edit;
+  double v = 0;
 
+  if (self->updating)
+    return;
+  now = target_text (self);
+  if (g_strcmp0 (text, now) == 0)
+    {
+      if (self->target_flagged)
+        target_unflag (self);
+      return;
+    }
   if (text[0] != '\0')
     {
-      if (!bw_units_parse (text, BW_KIND_TURBIDITY, "NTU", _("target settled turbidity"), &v, &error))
+      if (!bw_units_parse (text, BW_KIND_TURBIDITY, "NTU", _("target settled turbidity"), &v,
+                           &error))
         {
-          flag_widget (e, GTK_WIDGET (self->target_error_label), error->message);
+          target_flag (self, error->message);
           return;
         }
-      if (!(v >= 0))
+      if (!(v > 0))
         {
-          g_autofree char *msg = g_strdup_printf (_("target settled turbidity: must not be "
-                                                    "negative (got %s)"), text);
-          flag_widget (e, GTK_WIDGET (self->target_error_label), msg);
+          g_autofree char *msg = g_strdup_printf (_("target settled turbidity: must be above zero "
+                                                    "(got %s); leave it empty for none"), text);
+          target_flag (self, msg);
           return;
         }
     }
-  unflag_widget (e, GTK_WIDGET (self->target_error_label),
-                 _("The settled turbidity the dose must reach, NTU (for the chart and the dose; "
-                   "not saved)"));
-  if (v != self->target_NTU)
+  copy = bw_project_copy (project (self));
+  copy->chemistry.target_NTU = v;
+  edit = bw_edit_snapshot (copy, _("Set the target settled turbidity"), NULL);
+  bw_project_free (copy);
+  if (!bw_window_do_edit (self->window, edit, &error))
     {
-      self->target_NTU = v;
-      record_rebuild (self);
+      target_flag (self, error ? error->message : _("the edit was not accepted"));
+      return;
     }
+  target_unflag (self); /* ::project-changed has refreshed the page */
 }
 
 static void
@@ -1075,7 +1289,7 @@ bw_chem_view_paint_chart (BwChemView *self, cairo_t *cr, int width, int height, 
     }
   bw_jar_chart_options_init (&o);
   bw_jar_chart_options_from_project (&o, project (self));
-  o.target_NTU = self->target_NTU;
+  o.target_NTU = target_of (self);
   chart = bw_chart_jartest (r, &o, bw_window_get_unit_system (self->window), error);
   if (chart == NULL)
     return FALSE;
@@ -1174,7 +1388,6 @@ bw_chem_view_init (BwChemView *self)
   int row = 0;
 
   gtk_widget_init_template (GTK_WIDGET (self));
-  self->target_NTU = -1;
   gtk_label_set_text (self->caution_label, _(BW_CAUTION_TEXT));
   for (guint i = 0; i < N_CF; i++)
     row = attach_field (self, row, (ChemFieldId) i);
@@ -1218,6 +1431,7 @@ bw_chem_view_new (BwWindow *window)
   self = g_object_new (BW_TYPE_CHEM_VIEW, NULL);
   self->window = window;
   g_signal_connect_object (window, "project-changed", G_CALLBACK (project_changed), self, 0);
+  g_signal_connect (self, "map", G_CALLBACK (view_mapped), self);
   refresh (self);
   return GTK_WIDGET (self);
 }

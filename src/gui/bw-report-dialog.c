@@ -609,7 +609,7 @@ bw_report_dialog_init (BwReportDialog *self)
   gtk_widget_init_template (GTK_WIDGET (self));
   self->cancellable = g_cancellable_new ();
   self->zoom = 1.0;
-  gtk_label_set_text (self->caution_label, BW_CAUTION_TEXT);
+  gtk_label_set_text (self->caution_label, _(BW_CAUTION_TEXT));
   gtk_drawing_area_set_draw_func (self->preview_area, preview_draw, self, NULL);
   g_signal_connect_swapped (self->prev_button, "clicked", G_CALLBACK (prev_page), self);
   g_signal_connect_swapped (self->next_button, "clicked", G_CALLBACK (next_page), self);

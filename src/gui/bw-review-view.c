@@ -10,6 +10,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "draw/bw-labels.h"
 #include "draw/bw-report.h"
 #include "engine/bw-edit.h"
 #include "engine/bw-review.h"
@@ -39,6 +40,7 @@ struct _BwReviewView
   BwWindow *window;         /* weak pointer */
   GArray *findings;         /* BwFinding, borrowing the window's project and checks; NULL when stale */
   guint refresh_source;
+  gboolean stale;           /* the project changed while the page was out of sight */
   char *other_path;         /* the revision compared with */
   BwProject *other;
   BwResults *other_results; /* NULL when it does not evaluate */
@@ -121,7 +123,7 @@ case_text (const BwResults *r, int i)
 {
   if (r == NULL || i < 0 || (guint) i >= r->n_cases)
     return g_strdup ("—");
-  return bw_load_case_label (&r->cases[i]);
+  return bw_label_load_case (&r->cases[i]);
 }
 
 static const char *
@@ -144,7 +146,7 @@ stated_case_text (const BwResults *r, const BwFinding *f)
     case BW_STATED_MINIMUM:
       return f->load_case >= 0 ? g_strdup_printf (_("smallest (at %s)"), at) : g_strdup (_("smallest"));
     default:
-      return bw_load_case_label (&f->stated->load_case);
+      return bw_label_load_case (&f->stated->load_case);
     }
 }
 
@@ -386,7 +388,7 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
 
       element = f->stated->element;
       cell (top, element, 12, FALSE);
-      cell (top, info->label, 0, FALSE);
+      cell (top, bw_label_text (info->label), 0, FALSE);
       cell (top, st, 16, TRUE);
       cell (top, cp, 18, TRUE);
       cell (top, dv, 7, TRUE);
@@ -394,7 +396,7 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
       gtk_editable_set_text (GTK_EDITABLE (entry), f->stated->comment ? f->stated->comment : "");
       gtk_entry_set_placeholder_text (GTK_ENTRY (entry), _("Reviewer's comment"));
       gtk_widget_set_hexpand (entry, TRUE);
-      entry_name = g_strdup_printf (_("Comment on %s, %s"), element, info->label);
+      entry_name = g_strdup_printf (_("Comment on %s, %s"), element, bw_label_text (info->label));
       gtk_accessible_update_property (GTK_ACCESSIBLE (entry), GTK_ACCESSIBLE_PROPERTY_LABEL, entry_name, -1);
       gtk_widget_set_tooltip_text (entry, _("The reviewer's comment on this stated value (Enter keeps it; it "
                                             "is saved in the project)"));
@@ -405,7 +407,8 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
       gtk_box_append (bottom, entry);
       g_object_set_data (G_OBJECT (row), "bw-stated", GUINT_TO_POINTER (stated_index + 1));
       g_object_set_data (G_OBJECT (row), "bw-comment", entry);
-      accessible = g_strdup_printf ("%s: %s %s, %s, %s, %s", kind_text (f), element, info->label, st, cp, dv);
+      accessible = g_strdup_printf ("%s: %s %s, %s, %s, %s", kind_text (f), element,
+                                    bw_label_text (info->label), st, cp, dv);
     }
   else
     {
@@ -724,8 +727,25 @@ refresh_idle (gpointer data)
   BwReviewView *self = data;
 
   self->refresh_source = 0;
+  /* Out of sight, the findings wait (an edit elsewhere stays quick); shown, they are rebuilt. */
+  if (!gtk_widget_get_mapped (GTK_WIDGET (self)))
+    {
+      self->stale = TRUE;
+      return G_SOURCE_REMOVE;
+    }
+  self->stale = FALSE;
   bw_review_view_refresh (self);
   return G_SOURCE_REMOVE;
+}
+
+static void
+view_mapped (GtkWidget *widget, gpointer data)
+{
+  BwReviewView *self = data;
+
+  (void) widget;
+  if (self->stale && self->refresh_source == 0)
+    self->refresh_source = g_idle_add (refresh_idle, self);
 }
 
 static void
@@ -1001,6 +1021,7 @@ bw_review_view_new (BwWindow *window)
   self->window = window;
   g_object_add_weak_pointer (G_OBJECT (window), (gpointer *) &self->window);
   g_signal_connect (window, "project-changed", G_CALLBACK (project_changed), self);
+  g_signal_connect (self, "map", G_CALLBACK (view_mapped), self);
   self->refresh_source = g_idle_add (refresh_idle, self);
   return GTK_WIDGET (self);
 }

@@ -7,6 +7,7 @@
 #include <math.h>
 
 #include "engine/bw-edit.h"
+#include "draw/bw-labels.h"
 #include "engine/bw-error.h"
 #include "gui/bw-locale.h"
 #include "gui/bw-window-private.h"
@@ -164,11 +165,11 @@ field_label (BwField *f)
     {
     case BW_FIELD_PARAM:
       spec = field_spec (f);
-      return spec ? spec->label : f->id;
+      return spec ? bw_label_text (spec->label) : f->id;
     case BW_FIELD_FLOW:
-      return bw_flow_kind_label ((BwFlowKind) f->sub);
+      return bw_label_flow_kind ((BwFlowKind) f->sub);
     case BW_FIELD_TEMPERATURE:
-      return bw_temp_kind_name ((BwTempKind) f->sub);
+      return bw_label_temp_kind ((BwTempKind) f->sub);
     case BW_FIELD_RAW_WATER:
       return _(raw_labels[f->sub]);
     default:
@@ -286,7 +287,7 @@ field_unflag (BwField *f)
     {
       const BwParamSpec *spec = f->kind == BW_FIELD_PARAM ? field_spec (f) : NULL;
       gtk_widget_remove_css_class (f->widget, "error");
-      gtk_widget_set_tooltip_text (f->widget, spec ? spec->help : NULL);
+      gtk_widget_set_tooltip_text (f->widget, spec ? bw_label_text (spec->help) : NULL);
       gtk_accessible_reset_state (GTK_ACCESSIBLE (f->widget), GTK_ACCESSIBLE_STATE_INVALID);
       gtk_accessible_reset_property (GTK_ACCESSIBLE (f->widget), GTK_ACCESSIBLE_PROPERTY_DESCRIPTION);
     }
@@ -553,9 +554,9 @@ _bw_window_build_editor (BwWindow *self)
   gtk_label_set_text (self->unit_heading, u->name ? u->name : u->id);
   {
     /* TRANSLATORS: "<kind> of <flocculator> · id <id>" and "<kind> in <train> · id <id>" */
-    g_autofree char *t = parent ? g_strdup_printf (_("%s of %s · id %s"), bw_process_type_label (u->type),
+    g_autofree char *t = parent ? g_strdup_printf (_("%s of %s · id %s"), bw_label_process_type (u->type),
                                                    parent->name ? parent->name : parent->id, u->id)
-                                : g_strdup_printf (_("%s in %s · id %s"), bw_process_type_label (u->type),
+                                : g_strdup_printf (_("%s in %s · id %s"), bw_label_process_type (u->type),
                                                    train->name ? train->name : train->id, u->id);
     gtk_label_set_text (self->unit_type_label, t);
   }
@@ -581,7 +582,14 @@ _bw_window_build_editor (BwWindow *self)
             break;
           }
         case BW_PARAM_CHOICE:
-          f->widget = gtk_drop_down_new_from_strings (sp->choices);
+          {
+            /* The choices as a person reads them; the selected index is what is stored. */
+            g_autoptr (GPtrArray) shown = g_ptr_array_new ();
+            for (int c = 0; sp->choices[c]; c++)
+              g_ptr_array_add (shown, (gpointer) bw_label_choice (sp, c));
+            g_ptr_array_add (shown, NULL);
+            f->widget = gtk_drop_down_new_from_strings ((const char *const *) shown->pdata);
+          }
           g_signal_connect (f->widget, "notify::selected", G_CALLBACK (dropdown_changed), f);
           break;
         case BW_PARAM_COUNT:
@@ -593,8 +601,9 @@ _bw_window_build_editor (BwWindow *self)
           g_assert_not_reached ();
         }
       {
-        g_autofree char *label = sp->optional ? g_strdup_printf (_("%s (optional)"), sp->label) : g_strdup (sp->label);
-        row = attach_field (g, row, f, label, sp->help);
+        const char *sl = bw_label_text (sp->label);
+        g_autofree char *label = sp->optional ? g_strdup_printf (_("%s (optional)"), sl) : g_strdup (sl);
+        row = attach_field (g, row, f, label, bw_label_text (sp->help));
       }
     }
   if (u->type == BW_PROCESS_FLOCCULATOR)
@@ -687,7 +696,7 @@ cases_refresh (BwWindow *self)
     {
       GtkWidget *b = gtk_list_box_row_get_child (GTK_LIST_BOX_ROW (row));
       const BwLoadCase *c = &g_array_index (cases, BwLoadCase, i);
-      g_autofree char *label = bw_load_case_label (c);
+      g_autofree char *label = bw_label_load_case (c);
       gtk_check_button_set_label (GTK_CHECK_BUTTON (b), label);
       gtk_check_button_set_active (GTK_CHECK_BUTTON (b), c->enabled);
       gtk_widget_remove_css_class (b, "error");
@@ -800,7 +809,7 @@ _bw_window_build_basis (BwWindow *self)
       f->optional = k != BW_FLOW_MAXIMUM_DAY;
       ph = placeholder_for (BW_KIND_FLOW, self->units, f->optional);
       make_entry (f, ph);
-      row = attach_field (g, row, f, bw_flow_kind_label ((BwFlowKind) k),
+      row = attach_field (g, row, f, bw_label_flow_kind ((BwFlowKind) k),
                           k == BW_FLOW_MAXIMUM_DAY ? _("required: the plant's maximum-day flow")
                                                    : _("optional; leave empty when not given"));
     }
@@ -813,7 +822,7 @@ _bw_window_build_basis (BwWindow *self)
       f->sub = (guint) k;
       f->qkind = BW_KIND_TEMPERATURE;
       make_entry (f, ph);
-      row = attach_field (g, row, f, bw_temp_kind_name ((BwTempKind) k),
+      row = attach_field (g, row, f, bw_label_temp_kind ((BwTempKind) k),
                           _("cold water is more viscous: it governs many criteria"));
     }
   row = section (g, row, _("Raw water"));

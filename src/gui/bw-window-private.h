@@ -88,6 +88,8 @@ struct _BwWindow
   gboolean autosave_dirty;  /* edits since the last autosave */
   gboolean updating;        /* set while widgets are filled from the model */
   gboolean closing;         /* close confirmed */
+  gboolean checks_stale;    /* the check rows wait for the checks page to be shown */
+  gboolean checks_forced;   /* build them even so (checks_flush) */
   BwResults *pending;       /* evaluated by the edit check, adopted when the edit is kept */
   char *criteria_id;        /* the id or path self->criteria was opened from */
   guint n_case_rows;

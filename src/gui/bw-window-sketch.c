@@ -15,6 +15,7 @@
 #include "draw/bw-charts.h"
 #include "draw/bw-chart.h"
 #include "draw/bw-export.h"
+#include "draw/bw-labels.h"
 #include "draw/bw-sketch.h"
 #include "draw/bw-style.h"
 #include "gui/bw-window-private.h"
@@ -144,7 +145,7 @@ paint_view (BwWindow *self, cairo_t *cr, double width, double height, const BwSt
         {
           g_set_error (error, G_IO_ERROR, G_IO_ERROR_FAILED,
                        _("There is no %s view of a %s."), _(view_labels[view]),
-                       bw_process_type_label (u->type));
+                       bw_label_process_type (u->type));
           return FALSE;
         }
       return bw_sketch_paint (self->project, u, sv, self->units, style, cr, width, height, error);

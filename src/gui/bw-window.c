@@ -8,6 +8,7 @@
 #include <glib/gi18n.h>
 #include <math.h>
 
+#include "draw/bw-labels.h"
 #include "engine/bw-error.h"
 #include "engine/bw-evaluate.h"
 #include "gui/bw-autosize-dialog.h"
@@ -301,7 +302,7 @@ type_short (BwProcessType t)
     case BW_STAGE_BAFFLED:
       return _("baffled");
     default:
-      return bw_process_type_label (t);
+      return bw_label_process_type (t);
     }
 }
 
@@ -672,14 +673,14 @@ value_cell (GtkGrid *grid, int col, int row, const char *value, const char *case
 static char *
 case_compact (const BwLoadCase *c)
 {
-  return g_strdup_printf ("%s, %s%s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
+  return g_strdup_printf ("%s, %s%s", bw_label_flow_kind (c->flow), bw_label_temp_kind (c->temp),
                           c->service == BW_SERVICE_FIRM ? _(", firm") : "");
 }
 
 static char *
 case_short (const BwLoadCase *c)
 {
-  return g_strdup_printf ("%s\n%s\n%s", bw_flow_kind_label (c->flow), bw_temp_kind_name (c->temp),
+  return g_strdup_printf ("%s\n%s\n%s", bw_label_flow_kind (c->flow), bw_label_temp_kind (c->temp),
                           c->service == BW_SERVICE_FIRM ? _("firm") : _("all in service"));
 }
 
@@ -762,7 +763,7 @@ results_rebuild (BwWindow *self)
         }
       /* The quantity, with the criteria that judge it beneath. */
       qbox = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
-      qlabel = gtk_label_new (info->label);
+      qlabel = gtk_label_new (bw_label_text (info->label));
       gtk_label_set_xalign (GTK_LABEL (qlabel), 0);
       gtk_label_set_wrap (GTK_LABEL (qlabel), TRUE);
       gtk_label_set_max_width_chars (GTK_LABEL (qlabel), 17);
@@ -779,7 +780,7 @@ results_rebuild (BwWindow *self)
             continue;
           g_array_append_val (gov, ck->governing_case);
           box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-          chip = gtk_label_new (bw_check_status_name (ck->status));
+          chip = gtk_label_new (bw_label_check_status (ck->status));
           lim = limit_text (ck, self->units);
           l = gtk_label_new (lim);
           gtk_widget_add_css_class (l, "caption");
@@ -790,14 +791,14 @@ results_rebuild (BwWindow *self)
           gtk_widget_set_margin_start (box, 10);
           if (ck->governing_case >= 0)
             {
-              g_autofree char *cl = bw_load_case_label (&self->results->cases[ck->governing_case]);
+              g_autofree char *cl = bw_label_load_case (&self->results->cases[ck->governing_case]);
               g_autofree char *gv = bw_locale_format (ck->value, info->kind, self->units);
               g_autofree char *cc = case_compact (&self->results->cases[ck->governing_case]);
               g_autofree char *line = g_strdup_printf (_("governs: %s, %s"), gv, cc);
               GtkWidget *gl = gtk_label_new (line);
               /* TRANSLATORS: criterion (status): value in load case */
               tip = g_strdup_printf (_("%s (%s): %s in %s"), ck->criterion->title,
-                                     bw_check_status_name (ck->status), gv, cl);
+                                     bw_label_check_status (ck->status), gv, cl);
               gtk_label_set_xalign (GTK_LABEL (gl), 0);
               gtk_label_set_wrap (GTK_LABEL (gl), TRUE);
               gtk_label_set_max_width_chars (GTK_LABEL (gl), 24);
@@ -887,6 +888,9 @@ checks_rebuild (BwWindow *self)
   guint counts[4] = { 0 };
   g_autofree char *summary = NULL;
 
+  /* The rows are many wrapped labels: while the checks page is out of sight they wait, and are
+   * built when it is shown (or asked for). The summary and the counts are kept current. */
+  self->checks_stale = FALSE;
   while ((child = gtk_widget_get_first_child (GTK_WIDGET (self->checks_list))))
     gtk_list_box_remove (self->checks_list, child);
   if (self->criteria == NULL)
@@ -912,6 +916,11 @@ checks_rebuild (BwWindow *self)
                                           counts[BW_CHECK_WARN], counts[BW_CHECK_FAIL]);
     gtk_label_set_text (self->counts_label, c);
   }
+  if (!self->checks_forced && g_strcmp0 (gtk_stack_get_visible_child_name (self->page_stack), "checks") != 0)
+    {
+      self->checks_stale = TRUE;
+      return;
+    }
   for (guint i = 0; i < self->checks->len; i++)
     {
       const BwCheck *ck = &g_array_index (self->checks, BwCheck, i);
@@ -920,20 +929,20 @@ checks_rebuild (BwWindow *self)
       GtkWidget *row = gtk_list_box_row_new ();
       GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10);
       GtkWidget *text = gtk_box_new (GTK_ORIENTATION_VERTICAL, 1);
-      GtkWidget *chip = gtk_label_new (bw_check_status_name (ck->status));
+      GtkWidget *chip = gtk_label_new (bw_label_check_status (ck->status));
       g_autofree char *head = g_strdup_printf ("%s — %s", cr->title, el ? el->label : _("no element of that kind"));
       g_autofree char *value = ck->status != BW_CHECK_NOT_APPLICABLE && el
                                  ? bw_locale_format (ck->value, bw_quantity_info (cr->quantity)->kind, self->units)
                                  : g_strdup ("—");
       g_autofree char *lim = limit_text (ck, self->units);
-      g_autofree char *cl = ck->governing_case >= 0 ? bw_load_case_label (&self->results->cases[ck->governing_case])
+      g_autofree char *cl = ck->governing_case >= 0 ? bw_label_load_case (&self->results->cases[ck->governing_case])
                                                     : g_strdup (_("no load case"));
       g_autofree char *detail = g_strdup_printf (_("value %s   limit %s   governing case: %s"), value,
                                                  lim[0] ? lim : "—", cl);
       g_autofree char *cite = g_strdup_printf ("%s, %s, %s%s", cr->document ? cr->document : "",
                                                cr->edition ? cr->edition : "", cr->clause ? cr->clause : "",
                                                cr->provenance == BW_PROVENANCE_MEMORY ? _(" (from memory — verify)") : "");
-      g_autofree char *acc = g_strdup_printf ("%s: %s. %s", bw_check_status_name (ck->status), head, detail);
+      g_autofree char *acc = g_strdup_printf ("%s: %s. %s", bw_label_check_status (ck->status), head, detail);
       GtkWidget *l;
 
       gtk_widget_add_css_class (chip, "bw-status");
@@ -1390,9 +1399,29 @@ bw_window_get_project (BwWindow *self)
   return self->project;
 }
 
+/* Builds the check rows now if they waited while the page was out of sight. */
+static void
+checks_flush (BwWindow *self)
+{
+  if (!self->checks_stale)
+    return;
+  self->checks_forced = TRUE;
+  checks_rebuild (self);
+  self->checks_forced = FALSE;
+}
+
+static void
+page_shown (GtkStack *stack, GParamSpec *pspec, gpointer data)
+{
+  (void) pspec;
+  if (g_strcmp0 (gtk_stack_get_visible_child_name (stack), "checks") == 0)
+    checks_flush (data);
+}
+
 GtkWidget *
 bw_window_get_checks_list (BwWindow *self)
 {
+  checks_flush (self);
   g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
   return GTK_WIDGET (self->checks_list);
 }
@@ -1565,6 +1594,7 @@ bw_window_init (BwWindow *self)
   g_signal_connect (self->standby_spin, "value-changed", G_CALLBACK (counts_changed), self);
   g_signal_connect_swapped (self->every_case_toggle, "toggled", G_CALLBACK (results_rebuild), self);
   g_signal_connect (self->checks_list, "row-activated", G_CALLBACK (check_activated), self);
+  g_signal_connect (self->page_stack, "notify::visible-child", G_CALLBACK (page_shown), self);
   _bw_window_sketch_init (self);
   bw_window_add_page (self, "chemistry", _("Chemistry"), bw_chem_view_new (self));
   bw_window_add_page (self, "review", _("Review"), bw_review_view_new (self));

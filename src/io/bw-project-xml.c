@@ -233,6 +233,22 @@ read_basis (xmlNode *node, BwProject *p, const char *path, GError **error)
   return TRUE;
 }
 
+/* An optional chemistry input: present means given, so it must be above zero (0 is the model's
+ * "not given"). */
+static gboolean
+read_positive (xmlNode *node, BwQuantityKind kind, const char *what, double *out, const char *path,
+               GError **error)
+{
+  if (!read_quantity (node, kind, what, out, path, error))
+    return FALSE;
+  if (!(*out > 0))
+    {
+      g_autofree char *text = text_of (node);
+      return fail (error, path, node, "%s: must be above zero when given (got %s)", what, text);
+    }
+  return TRUE;
+}
+
 static gboolean
 read_chemistry (xmlNode *node, BwProject *p, const char *path, GError **error)
 {
@@ -262,6 +278,28 @@ read_chemistry (xmlNode *node, BwProject *p, const char *path, GError **error)
           && !read_quantity (k, BW_KIND_CONCENTRATION, "residual alkalinity", &c->residual_target_kg_m3,
                              path, error))
         return FALSE;
+      if (bw_xml_is (k, NS, "stock-strength")
+          && !read_positive (k, BW_KIND_FRACTION, "stock solution strength", &c->stock_fraction,
+                             path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "stock-density")
+          && !read_positive (k, BW_KIND_DENSITY, "stock solution density",
+                             &c->stock_density_kg_m3, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "sludge-solids")
+          && !read_positive (k, BW_KIND_FRACTION, "sludge solids content",
+                             &c->sludge_solids_fraction, path, error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "target-turbidity")
+          && !read_positive (k, BW_KIND_TURBIDITY, "target settled turbidity", &c->target_NTU, path,
+                             error))
+        return FALSE;
+      if (bw_xml_is (k, NS, "alkali"))
+        {
+          g_autofree char *text = text_of (k);
+          if (!bw_alkali_kind_from_name (text, &c->alkali))
+            return fail (error, path, k, "alkali supplement: '%s' is not lime or soda-ash", text);
+        }
       if (bw_xml_is (k, NS, "dose"))
         {
           g_autofree char *which = bw_xml_prop (k, "case");
@@ -913,6 +951,16 @@ bw_project_to_xml (const BwProject *p)
       write_quantity (s, "    ", "ss-factor", NULL, c->ss_factor, BW_KIND_NUMBER);
       write_quantity (s, "    ", "residual-alkalinity", " as=\"CaCO3\"", c->residual_target_kg_m3,
                       BW_KIND_CONCENTRATION);
+      g_string_append_printf (s, "    <alkali>%s</alkali>\n", bw_alkali_kind_name (c->alkali));
+      if (c->stock_fraction > 0)
+        write_quantity (s, "    ", "stock-strength", NULL, c->stock_fraction, BW_KIND_FRACTION);
+      if (c->stock_density_kg_m3 > 0)
+        write_quantity (s, "    ", "stock-density", NULL, c->stock_density_kg_m3, BW_KIND_DENSITY);
+      if (c->sludge_solids_fraction > 0)
+        write_quantity (s, "    ", "sludge-solids", NULL, c->sludge_solids_fraction,
+                        BW_KIND_FRACTION);
+      if (c->target_NTU > 0)
+        write_quantity (s, "    ", "target-turbidity", NULL, c->target_NTU, BW_KIND_TURBIDITY);
       g_string_append (s, "  </chemistry>\n");
     }
   for (guint i = 0; i < p->jar_tests->len; i++)

@@ -23,7 +23,7 @@ typedef struct
 /* Every drawn view of every unit of the demo project: a square and a round rapid-mix tank with
  * two impeller types, the rectangular basin, the three flocculators (turbine and paddles,
  * baffles around the end, paddles), one stage of each kind alone, the circular clarifier, the
- * plate settler, and each train's schematic (asked for by a unit, an in-line mixer and a
+ * plate settler (plan and section), and each train's schematic (asked for by a unit, an in-line mixer and a
  * stage). */
 static const Case cases[] = {
   { "north-sed", BW_SKETCH_PLAN },      { "north-sed", BW_SKETCH_SECTION },
@@ -36,7 +36,7 @@ static const Case cases[] = {
   { "north-floc-2", BW_SKETCH_PLAN },   { "north-floc-2", BW_SKETCH_SECTION },
   { "south-floc-3", BW_SKETCH_PLAN },   { "south-floc-3", BW_SKETCH_SECTION },
   { "south-sed", BW_SKETCH_PLAN },      { "south-sed", BW_SKETCH_SECTION },
-  { "east-sed", BW_SKETCH_SECTION },
+  { "east-sed", BW_SKETCH_PLAN },       { "east-sed", BW_SKETCH_SECTION },
   { "north-sed", BW_SKETCH_SCHEMATIC }, { "south-mix", BW_SKETCH_SCHEMATIC },
   { "east-floc-2", BW_SKETCH_SCHEMATIC },
 };
@@ -471,6 +471,111 @@ START_TEST (test_sketch_new_views_to_scale)
 }
 END_TEST
 
+/* Centres of the runs of red over cyan water along ROW between page x X0 and X1 (inside the
+ * water, where no grey half-covers white paper), however thin (a line of a fraction of a pixel):
+ * a pixel counts when it is a blend of the two, weighted by its red. */
+static int
+tint_centres (cairo_surface_t *s, int row, int x0, int x1, double *centres, int max)
+{
+  const int w = cairo_image_surface_get_width (s);
+  int n = 0;
+  double sum = 0, wsum = 0;
+  x0 = MAX (x0, 0);
+  x1 = MIN (x1, w);
+  for (int x = x0; x <= x1; x++)
+    {
+      double a = 0;
+      if (x < x1)
+        {
+          int c[3];
+          pixel (s, x, row, c);
+          /* red at coverage a over cyan is (a, 1 - a, 1 - a): red and green add up to full,
+           * green and blue alike; white, greys, ink and the green concrete do not */
+          if (c[0] > 20 && abs (c[0] + c[1] - 255) < 40 && abs (c[1] - c[2]) < 30)
+            a = c[0] / 255.0;
+        }
+      if (a > 0)
+        {
+          sum += a * x;
+          wsum += a;
+        }
+      else if (wsum > 0)
+        {
+          if (n < max)
+            centres[n++] = sum / wsum;
+          sum = wsum = 0;
+        }
+    }
+  return n;
+}
+
+/* The plate settler's plan drawn to the scale of its bar. The demo's 500 plates (50 mm apart at
+ * 60°, 1.5 m long, 1.2 m wide; from the demo file) stand in 3 banks of 167, 167 and 166 rows
+ * (the fewest that keep the modules at most 4 x as long as wide, our drafting rule): the
+ * modules are 166 x 0.05 m / sin 60° + 1.5 m x cos 60° = 10.334 m long, and the basin 1 m of
+ * inlet zone (by convention) longer, 11.334 m inside (derived). */
+static const double settler_module_m = 166 * 0.05 / 0.86602540378443865 + 0.75;
+
+START_TEST (test_sketch_settler_plan_to_scale)
+{
+  const double *sz = sizes[_i];
+  const Case k = { "east-sed", BW_SKETCH_PLAN };
+  const double pitch_m = 0.05 / sin (G_PI / 3);
+  g_autoptr (GError) error = NULL;
+  BwStyle st = *bw_style_light ();
+  BwSketchGeometry g;
+  cairo_surface_t *s;
+  double c[4096];
+  int first_end, last_start, nc, row;
+  double got, want;
+
+  st.water = (BwRgb) { 0, 1, 1 };
+  st.concrete = (BwRgb) { 0, 0.8, 0 };
+  st.equipment = (BwRgb) { 1, 0, 0 };
+  ck_assert (bw_sketch_layout (demo, unit (k.unit), k.view, BW_UNIT_SYSTEM_SI, &st, sz[0], sz[1],
+                               &g, &error));
+  s = paint_image (&k, &st, BW_UNIT_SYSTEM_SI, (int) sz[0], (int) sz[1]);
+  /* halfway across the first bank: clear of the inlet opening (in the middle of the 3.6 m
+   * width) and of the bank edges */
+  row = (int) floor (g.origin_y - g.scale * 0.6);
+
+  /* 1. the basin: between the end walls' concrete, the inside length plus one outline (half of
+   * it on each inner face), as for the clarifier's wall ring */
+  ck_assert (colour_runs (s, row, st.concrete, &first_end, &last_start));
+  got = last_start - first_end - 1;
+  want = g.scale * (1.0 + settler_module_m) + outline_px (&st, &g);
+  ck_assert_msg (fabs (got - want) <= 1.5, "settler basin inside %g px, want %g", got, want);
+
+  /* 2. the modules: from the bank's inlet edge to its far edge, centre to centre, in red */
+  nc = run_centres (s, row, c, G_N_ELEMENTS (c));
+  ck_assert_msg (nc >= 2, "%d red runs", nc);
+  got = c[nc - 1] - c[0];
+  want = g.scale * settler_module_m;
+  ck_assert_msg (fabs (got - want) <= 1.5, "settler modules %g px, want %g", got, want);
+  ck_assert_msg (fabs (c[0] - (g.origin_x + g.scale * 1.0)) <= 1.0, "modules start at %g, want %g",
+                 c[0], g.origin_x + g.scale * 1.0);
+
+  /* 3. the last rows, drawn one to a pitch where they stand far enough apart on the page (4 px,
+   * or 3 line widths on a large canvas; derived from bw-sketch.c), else one in a whole number
+   * of pitches: the last gap is that many pitches */
+  {
+    const double need = MAX (4.0, 3.0 * g.text_size / st.font_size);
+    const double every = g.scale * pitch_m >= need ? 1 : ceil (need / (g.scale * pitch_m));
+    /* from the inlet zone to the outline of the far wall's inner face, exclusive */
+    nc = tint_centres (s, row, (int) (g.origin_x + g.scale * 0.5),
+                       (int) floor (g.origin_x + g.scale * (1.0 + settler_module_m)
+                                    + 0.5 * outline_px (&st, &g)),
+                       c, G_N_ELEMENTS (c));
+    ck_assert_msg (nc >= 2, "%d red runs", nc);
+    got = c[nc - 1] - c[nc - 2];
+    want = g.scale * pitch_m * every;
+    ck_assert_msg (fabs (got - want) <= 1.0, "last gap %g px, want %g (%g pitches)", got, want,
+                   every);
+  }
+  cairo_surface_destroy (s);
+}
+END_TEST
+
 START_TEST (test_sketch_light_and_dark)
 {
   const Case *k = &cases[_i];
@@ -597,6 +702,9 @@ static const Variant new_variants[] = {
   { "east-sed", "shape", 1 },               { "east-sed", "shape", 2 },
   { "east-sed", "angle", G_PI / 4 },        { "east-sed", "angle", 1.5 },
   { "east-sed", "count", 3 },               { "east-sed", "spacing", 0.3 },
+  { "east-sed", "count", 1 },               { "east-sed", "count", 1000000 },
+  { "east-sed", "module-area", 40.0 },      { "east-sed", "module-area", 2.0 },
+  { "east-sed", "plate-width", 0.2 },
 };
 
 START_TEST (test_sketch_new_variants)
@@ -704,15 +812,24 @@ START_TEST (test_sketch_refuses)
   cairo_surface_t *bad;
   cairo_t *cr = cairo_create (s);
 
-  /* an in-line mixer has no geometry to draw, a plate settler no plan */
+  /* an in-line mixer has no geometry to draw */
   ck_assert (!bw_sketch_paint (demo, unit ("south-mix"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
                                bw_style_light (), cr, 400, 300, &error));
   bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "south-mix");
   g_clear_error (&error);
-  ck_assert (!bw_sketch_paint (demo, unit ("east-sed"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
-                               bw_style_light (), cr, 400, 300, &error));
-  bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED, "drawn: section|schematic");
-  g_clear_error (&error);
+  /* a settler's plan needs room for one row of plates in the module area entered (one row of
+   * the demo's plates covers 1.2 m x 0.75 m = 0.9 m², derived) */
+  {
+    g_autoptr (BwProcessUnit) u = bw_process_unit_copy (unit ("east-sed"));
+    ck_assert (bw_process_unit_set (u, "module-area", 0.5, &error));
+    ck_assert (!bw_sketch_paint (demo, u, BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI, bw_style_light (), cr,
+                                 400, 300, &error));
+    bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY, "module-area:");
+    g_clear_error (&error);
+    /* the section does not use the module area, and still draws */
+    ck_assert (bw_sketch_paint (demo, u, BW_SKETCH_SECTION, BW_UNIT_SYSTEM_SI, bw_style_light (),
+                                cr, 400, 300, &error));
+  }
   ck_assert (!bw_sketch_layout (demo, unit ("north-sed"), BW_SKETCH_PLAN, BW_UNIT_SYSTEM_SI,
                                 bw_style_light (), 100, 300, &g, &error));
   bw_assert_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "size:");
@@ -746,14 +863,16 @@ START_TEST (test_sketch_view_names)
   ck_assert (bw_sketch_supports (BW_PROCESS_RAPID_MIX, BW_SKETCH_SECTION));
   ck_assert (bw_sketch_supports (BW_PROCESS_FLOCCULATOR, BW_SKETCH_PLAN));
   ck_assert (bw_sketch_supports (BW_STAGE_BAFFLED, BW_SKETCH_SECTION));
-  ck_assert (!bw_sketch_supports (BW_PROCESS_PLATE_SETTLER, BW_SKETCH_PLAN));
+  ck_assert (bw_sketch_supports (BW_PROCESS_PLATE_SETTLER, BW_SKETCH_PLAN));
   ck_assert (!bw_sketch_supports (BW_PROCESS_INLINE_MIXER, BW_SKETCH_SECTION));
   ck_assert (bw_sketch_supports (BW_PROCESS_INLINE_MIXER, BW_SKETCH_SCHEMATIC));
   {
     g_autofree char *a = bw_sketch_views_of (BW_PROCESS_CIRCULAR_CLARIFIER);
     g_autofree char *b = bw_sketch_views_of (BW_PROCESS_INLINE_MIXER);
+    g_autofree char *c = bw_sketch_views_of (BW_PROCESS_PLATE_SETTLER);
     ck_assert_str_eq (a, "plan|section|schematic");
     ck_assert_str_eq (b, "schematic");
+    ck_assert_str_eq (c, "plan|section|schematic");
   }
 }
 END_TEST
@@ -888,6 +1007,7 @@ bw_test_suite (void)
   tcase_add_loop_test (tc, test_sketch_scale_bar_matches_label, 0, N_CASES * N_SIZES * 2);
   tcase_add_loop_test (tc, test_sketch_drawn_to_scale, 0, N_SIZES);
   tcase_add_loop_test (tc, test_sketch_new_views_to_scale, 0, N_SIZES);
+  tcase_add_loop_test (tc, test_sketch_settler_plan_to_scale, 0, N_SIZES);
   tcase_add_loop_test (tc, test_sketch_light_and_dark, 0, N_CASES);
   tcase_add_loop_test (tc, test_sketch_layout_fits_world, 0, N_CASES * N_SIZES);
   tcase_add_loop_test (tc, test_sketch_variants, 0, G_N_ELEMENTS (variants));

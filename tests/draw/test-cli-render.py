@@ -66,7 +66,7 @@ VIEWS = {
     "baffled-stage": {"plan", "section", "schematic"},
     "rectangular-basin": {"plan", "section", "schematic"},
     "circular-clarifier": {"plan", "section", "schematic"},
-    "plate-settler": {"section", "schematic"},
+    "plate-settler": {"plan", "section", "schematic"},
 }
 NS = "{urn:x-basinwright:project:1}"
 demo_units = [(e.get("id"), e.get("type")) for e in ET.parse(demo).iter()
@@ -111,7 +111,7 @@ def parse_back(uid, view):
 
 
 for uid, view in (("north-floc", "plan"), ("south-floc", "section"), ("north-floc-2", "section"),
-                  ("south-sed", "plan"), ("south-sed", "section"), ("east-sed", "section"),
+                  ("south-sed", "plan"), ("south-sed", "section"), ("east-sed", "plan"), ("east-sed", "section"),
                   ("east-rm", "schematic")):
     tap.check(f"render {uid} {view} as SVG and PDF: rsvg-convert and pdftoppm read them back",
               parse_back(uid, view))

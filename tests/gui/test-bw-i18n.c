@@ -71,6 +71,35 @@ find_stack (GtkWidget *root)
   return NULL;
 }
 
+/* The first button under ROOT whose label is LABEL. */
+static GtkWidget *
+find_button (GtkWidget *root, const char *label)
+{
+  if (GTK_IS_BUTTON (root) && g_strcmp0 (gtk_button_get_label (GTK_BUTTON (root)), label) == 0)
+    return root;
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = find_button (c, label);
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+/* How many labels under ROOT carry the CSS class "bw-status" (a check's chip) and read TEXT. */
+static guint
+count_chips (GtkWidget *root, const char *text)
+{
+  guint n = 0;
+
+  if (GTK_IS_LABEL (root) && gtk_widget_has_css_class (root, "bw-status")
+      && g_strcmp0 (gtk_label_get_text (GTK_LABEL (root)), text) == 0)
+    n++;
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    n += count_chips (c, text);
+  return n;
+}
+
 /* TRUE when TEXT holds a digit, a comma and a digit in a row ("56,00"). */
 static gboolean
 has_decimal_comma (const char *text)
@@ -114,6 +143,40 @@ START_TEST (test_spanish_strings_show)
   ck_assert_ptr_nonnull (caution);
   ck_assert (gtk_widget_get_mapped (caution));
   ck_assert_str_eq (gtk_label_get_text (GTK_LABEL (caution)), _(BW_CAUTION_TEXT));
+  close_window (w);
+}
+END_TEST
+
+/* Text the engine supplies (parameter tables, quantity names, check status words) is marked
+ * N_() there and translated where the workbench shows it; so are the newer pages and dialogs. */
+START_TEST (test_engine_text_in_spanish)
+{
+  BwWindow *w = demo_window ();
+  GtkStack *stack = find_stack (GTK_WIDGET (w));
+  GtkWidget *review;
+  guint chips;
+
+  bw_window_select_unit (w, "north-sed");
+  bw_gui_test_pump (5);
+  /* A parameter label of the rectangular basin's table (bw-params.c, po/es.po). */
+  ck_assert_ptr_nonnull (find_label (GTK_WIDGET (w), "profundidad de la zona de lodos", FALSE));
+  ck_assert_ptr_null (find_label (GTK_WIDGET (w), "sludge zone depth", FALSE));
+  /* A quantity name in the results table (bw-quantity.c, po/es.po). */
+  ck_assert_ptr_nonnull (find_label (GTK_WIDGET (w), "carga superficial", FALSE));
+  ck_assert_ptr_null (find_label (GTK_WIDGET (w), "surface overflow rate", FALSE));
+  /* The status chips of the checks (bw-criteria.c, context "check"): Spanish, never English. */
+  chips = count_chips (GTK_WIDGET (w), "cumple") + count_chips (GTK_WIDGET (w), "aviso")
+          + count_chips (GTK_WIDGET (w), "falla");
+  ck_assert_uint_gt (chips, 0);
+  ck_assert_uint_eq (count_chips (GTK_WIDGET (w), "pass") + count_chips (GTK_WIDGET (w), "warn")
+                     + count_chips (GTK_WIDGET (w), "fail"), 0);
+  /* The Review page title (bw-window.c) and the auto-size button (ui/bw-window.ui). */
+  ck_assert_ptr_nonnull (stack);
+  review = gtk_stack_get_child_by_name (stack, "review");
+  ck_assert_ptr_nonnull (review);
+  ck_assert_str_eq (gtk_stack_page_get_title (gtk_stack_get_page (stack, review)), "Revisión");
+  ck_assert_ptr_nonnull (find_button (GTK_WIDGET (w), "_Autodimensionar…"));
+  ck_assert_ptr_null (find_button (GTK_WIDGET (w), "Auto-_size…"));
   close_window (w);
 }
 END_TEST
@@ -191,6 +254,7 @@ i18n_suite (void)
 
   tcase_set_timeout (tc, 60);
   tcase_add_test (tc, test_spanish_strings_show);
+  tcase_add_test (tc, test_engine_text_in_spanish);
   tcase_add_test (tc, test_numbers_use_the_decimal_comma);
   tcase_add_test (tc, test_locale_helpers);
   suite_add_tcase (s, tc);

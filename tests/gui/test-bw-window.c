@@ -572,6 +572,8 @@ START_TEST (test_criteria_and_case_widgets)
   ck_assert_uint_ne (want, G_MAXUINT);
   gtk_drop_down_set_selected (dd, want);
   ck_assert_str_eq (p->criteria, "recommended-standards-2018");
+  /* asking for the list builds rows that waited while the checks page was out of sight */
+  list = bw_window_get_checks_list (w);
   for (GtkWidget *r = gtk_widget_get_first_child (list); r; r = gtk_widget_get_next_sibling (r))
     after++;
   ck_assert_uint_gt (after, 0);

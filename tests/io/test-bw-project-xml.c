@@ -79,6 +79,13 @@ START_TEST (test_project_load_demo)
   bw_assert_rel (p->chemistry.dose_design_kg_m3, 0.030, 1e-12);
   bw_assert_rel (p->chemistry.residual_target_kg_m3, 0.020, 1e-12);
   ck_assert_str_eq (p->chemistry.jar_test, "jt-2026-11");
+  /* The liquid stock, sludge and target, typed in % and kg/m3: 48.5 % = 0.485, 1 % = 0.01
+   * (definition of the percent). */
+  bw_assert_rel (p->chemistry.stock_fraction, 0.485, 1e-12);
+  bw_assert_rel (p->chemistry.stock_density_kg_m3, 1330, 1e-12);
+  ck_assert_int_eq (p->chemistry.alkali, BW_ALKALI_LIME);
+  bw_assert_rel (p->chemistry.sludge_solids_fraction, 0.01, 1e-12);
+  bw_assert_rel (p->chemistry.target_NTU, 2.0, 1e-12);
   ck_assert_uint_eq (p->jar_tests->len, 1);
   {
     const BwJarTestRecord *jt = g_ptr_array_index (p->jar_tests, 0);
@@ -116,6 +123,115 @@ START_TEST (test_project_roundtrip_examples)
       c = bw_project_copy (b);
       ck_assert (bw_project_equal (b, c));
     }
+}
+END_TEST
+
+START_TEST (test_project_chemistry_defaults_and_roundtrip)
+{
+  /* The non-compliant example was written before the stock, alkali, sludge-solids and target
+   * elements: it loads with them not given (0) and lime. */
+  g_autofree char *path = example ("marrowby-noncompliant.bwproj");
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwProject) a = bw_project_load (path, &error);
+  g_autoptr (BwProject) b = NULL;
+  g_autoptr (BwProject) c = NULL;
+  g_autofree char *x1 = NULL;
+  g_autofree char *x2 = NULL;
+  g_autofree char *x3 = NULL;
+  g_autofree char *text = NULL;
+
+  ck_assert_msg (a != NULL, "%s", error ? error->message : "");
+  ck_assert (g_file_get_contents (path, &text, NULL, NULL));
+  ck_assert (strstr (text, "<stock-strength") == NULL && strstr (text, "<target-turbidity") == NULL);
+  ck_assert (a->chemistry.enabled);
+  ck_assert (a->chemistry.stock_fraction == 0 && a->chemistry.stock_density_kg_m3 == 0);
+  ck_assert (a->chemistry.sludge_solids_fraction == 0 && a->chemistry.target_NTU == 0);
+  ck_assert_int_eq (a->chemistry.alkali, BW_ALKALI_LIME);
+  /* Nothing not given is written. */
+  x1 = bw_project_to_xml (a);
+  ck_assert_msg (strstr (x1, "<stock-strength") == NULL && strstr (x1, "<stock-density") == NULL
+                 && strstr (x1, "<sludge-solids") == NULL && strstr (x1, "<target-turbidity") == NULL,
+                 "%s", x1);
+  ck_assert (strstr (x1, "<alkali>lime</alkali>") != NULL);
+
+  /* Every new field set, soda ash chosen: the model and the text round-trip exactly. The inputs
+   * are our own, picked for long binary expansions; the check is equality with themselves. */
+  a->chemistry.stock_fraction = 0.1 + 0.2;
+  a->chemistry.stock_density_kg_m3 = 1500.0 / 3.0 * 3.1;
+  a->chemistry.alkali = BW_ALKALI_SODA_ASH;
+  a->chemistry.sludge_solids_fraction = 0.0123456789012345;
+  a->chemistry.target_NTU = 1.0 / 3.0;
+  ck_assert (bw_project_validate (a, NULL));
+  g_clear_pointer (&x1, g_free);
+  x1 = bw_project_to_xml (a);
+  ck_assert (strstr (x1, "<alkali>soda-ash</alkali>") != NULL);
+  b = bw_project_load_memory (x1, strlen (x1), "chem.bwproj", &error);
+  ck_assert_msg (b != NULL, "%s", error ? error->message : "");
+  ck_assert (bw_project_equal (a, b));
+  ck_assert (b->chemistry.stock_fraction == 0.1 + 0.2);
+  ck_assert (b->chemistry.target_NTU == 1.0 / 3.0);
+  x2 = bw_project_to_xml (b);
+  ck_assert_str_eq (x1, x2);
+  c = bw_project_copy (b);
+  ck_assert (bw_project_equal (b, c));
+  /* equal notices each new field. */
+  c->chemistry.alkali = BW_ALKALI_LIME;
+  ck_assert (!bw_project_equal (b, c));
+  c->chemistry.alkali = BW_ALKALI_SODA_ASH;
+  c->chemistry.target_NTU = 0;
+  ck_assert (!bw_project_equal (b, c));
+  c->chemistry.target_NTU = b->chemistry.target_NTU;
+  c->chemistry.stock_density_kg_m3 += 1e-9;
+  ck_assert (!bw_project_equal (b, c));
+  c->chemistry.stock_density_kg_m3 = b->chemistry.stock_density_kg_m3;
+  c->chemistry.sludge_solids_fraction = 0;
+  ck_assert (!bw_project_equal (b, c));
+  c->chemistry.sludge_solids_fraction = b->chemistry.sludge_solids_fraction;
+  ck_assert (bw_project_equal (b, c));
+
+  /* Emptied again, they are left out again. */
+  b->chemistry.stock_fraction = 0;
+  b->chemistry.target_NTU = 0;
+  x3 = bw_project_to_xml (b);
+  ck_assert (strstr (x3, "<stock-strength") == NULL && strstr (x3, "<target-turbidity") == NULL);
+  ck_assert (strstr (x3, "<stock-density") != NULL);
+}
+END_TEST
+
+START_TEST (test_project_chemistry_validate)
+{
+  /* The same rules hold for a model edited in memory; each error names its field. */
+  g_autofree char *path = example ("marrowby-demo.bwproj");
+  g_autoptr (BwProject) p = bw_project_load (path, NULL);
+  const struct { double *slot; double bad; const char *field; } cases[] = {
+    { &p->chemistry.stock_fraction, 1.2, "stock solution strength" },
+    { &p->chemistry.stock_fraction, -0.1, "stock solution strength" },
+    { &p->chemistry.stock_fraction, NAN, "stock solution strength" },
+    { &p->chemistry.stock_density_kg_m3, 100, "stock solution density" },
+    { &p->chemistry.stock_density_kg_m3, INFINITY, "stock solution density" },
+    { &p->chemistry.sludge_solids_fraction, 0.7, "sludge solids content" },
+    { &p->chemistry.target_NTU, -1, "target settled turbidity" },
+  };
+
+  ck_assert_ptr_nonnull (p);
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      g_autoptr (GError) error = NULL;
+      const double keep = *cases[i].slot;
+      *cases[i].slot = cases[i].bad;
+      ck_assert_msg (!bw_project_validate (p, &error), "case %u accepted", i);
+      ck_assert_msg (g_str_has_prefix (error->message, cases[i].field), "case %u: %s", i,
+                     error->message);
+      *cases[i].slot = keep;
+    }
+  p->chemistry.alkali = (BwAlkaliKind) 7;
+  {
+    g_autoptr (GError) error = NULL;
+    ck_assert (!bw_project_validate (p, &error));
+    ck_assert_msg (g_str_has_prefix (error->message, "alkali supplement"), "%s", error->message);
+  }
+  p->chemistry.alkali = BW_ALKALI_SODA_ASH;
+  ck_assert (bw_project_validate (p, NULL));
 }
 END_TEST
 
@@ -453,6 +569,36 @@ static const RecordCase bad_records[] = {
   { DEMO, "<initial-concentration unit=\"mg/L\">42</initial-concentration>", "", -1, "" }, /* optional */
   { DEMO, "readings=\"removal\"", "readings=\"concentration\"", BW_IO_ERROR_INVALID,
     "mg/L at depth 0.6 m and 10 min is not between 0 and the initial 42 mg/L" },
+  /* The chemistry's optional inputs: absent is "not given", present must be valid. */
+  { DEMO, "<stock-strength unit=\"%\">48.5</stock-strength>", "", -1, "" },
+  { DEMO, "<stock-strength unit=\"%\">48.5</stock-strength>",
+    "<stock-strength unit=\"%\">0</stock-strength>", BW_IO_ERROR_INVALID,
+    "stock solution strength: must be above zero when given (got 0)" },
+  { DEMO, "<stock-strength unit=\"%\">48.5</stock-strength>",
+    "<stock-strength unit=\"%\">148.5</stock-strength>", BW_IO_ERROR_INVALID,
+    "stock solution strength: 1.485 g/g is outside the valid range" },
+  { DEMO, "<stock-strength unit=\"%\">48.5</stock-strength>",
+    "<stock-strength unit=\"%\">about half</stock-strength>", BW_IO_ERROR_INVALID, ":" }, /* schema */
+  { DEMO, "<stock-density unit=\"kg/m3\">1330</stock-density>",
+    "<stock-density unit=\"m\">1330</stock-density>", BW_IO_ERROR_INVALID, "stock solution density" },
+  { DEMO, "<stock-density unit=\"kg/m3\">1330</stock-density>",
+    "<stock-density unit=\"kg/m3\">13300</stock-density>", BW_IO_ERROR_INVALID,
+    "stock solution density: 13300 kg/m³ is outside the valid range 500 to 3000" },
+  { DEMO, "<stock-density unit=\"kg/m3\">1330</stock-density>",
+    "<stock-density unit=\"kg/m3\">-1330</stock-density>", BW_IO_ERROR_INVALID,
+    "stock solution density: must be above zero" },
+  { DEMO, "<sludge-solids unit=\"%\">1</sludge-solids>", "<sludge-solids unit=\"%\">80</sludge-solids>",
+    BW_IO_ERROR_INVALID, "sludge solids content: 0.8 g/g is outside the valid range" },
+  { DEMO, "<sludge-solids unit=\"%\">1</sludge-solids>", "<sludge-solids unit=\"%\">1e999</sludge-solids>",
+    BW_IO_ERROR_INVALID, "sludge solids content" },
+  { DEMO, "<target-turbidity unit=\"NTU\">2</target-turbidity>",
+    "<target-turbidity unit=\"NTU\">-2</target-turbidity>", BW_IO_ERROR_INVALID,
+    "target settled turbidity: must be above zero" },
+  { DEMO, "<target-turbidity unit=\"NTU\">2</target-turbidity>",
+    "<target-turbidity unit=\"mg/L\">2</target-turbidity>", BW_IO_ERROR_INVALID,
+    "target settled turbidity" },
+  { DEMO, "<alkali>lime</alkali>", "<alkali>chalk</alkali>", BW_IO_ERROR_INVALID, ":" }, /* schema */
+  { DEMO, "<alkali>lime</alkali>", "<alkali>soda-ash</alkali>", -1, "" },
 };
 
 START_TEST (test_project_bad_records)
@@ -664,6 +810,8 @@ bw_test_suite (void)
   tcase_add_checked_fixture (tc, setup, teardown);
   tcase_add_test (tc, test_project_load_demo);
   tcase_add_test (tc, test_project_roundtrip_examples);
+  tcase_add_test (tc, test_project_chemistry_defaults_and_roundtrip);
+  tcase_add_test (tc, test_project_chemistry_validate);
   tcase_add_test (tc, test_project_equal_notices_changes);
   tcase_add_test (tc, test_project_foreign_elements_kept);
   tcase_add_loop_test (tc, test_project_hostile, 0, G_N_ELEMENTS (hostile));

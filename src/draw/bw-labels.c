@@ -1,0 +1,73 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-labels.c: the engine's readable labels in the reader's language. The engine marks its table
+ * strings with N_() and NC_() for the template and stays locale-free; the translating happens
+ * here, at the edge where a person reads them. */
+#include "config.h"
+
+#include "draw/bw-labels.h"
+
+#include <glib/gi18n-lib.h>
+
+const char *
+bw_label_text (const char *label)
+{
+  return label && *label ? g_dgettext (GETTEXT_PACKAGE, label) : "";
+}
+
+const char *
+bw_label_process_type (BwProcessType type)
+{
+  return bw_label_text (bw_process_type_label (type));
+}
+
+const char *
+bw_label_choice (const BwParamSpec *spec, int index)
+{
+  const char *name;
+
+  g_return_val_if_fail (spec != NULL, "");
+  name = bw_param_choice_name (spec, index);
+  return name ? g_dpgettext2 (GETTEXT_PACKAGE, "choice", name) : "";
+}
+
+const char *
+bw_label_check_status (BwCheckStatus status)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "check", bw_check_status_name (status));
+}
+
+const char *
+bw_label_flow_kind (BwFlowKind kind)
+{
+  return g_dpgettext2 (GETTEXT_PACKAGE, "flow", bw_flow_kind_label (kind));
+}
+
+const char *
+bw_label_temp_kind (BwTempKind kind)
+{
+  switch (kind)
+    {
+    /* TRANSLATORS: the design temperature of a load case: the coldest water of the year. */
+    case BW_TEMP_COLDEST: return C_("temperature", "coldest");
+    /* TRANSLATORS: the design temperature of a load case: the warmest water of the year. */
+    case BW_TEMP_WARMEST: return C_("temperature", "warmest");
+    default: return bw_temp_kind_name (kind);
+    }
+}
+
+const char *
+bw_label_service_state (BwServiceState state)
+{
+  /* TRANSLATORS: a load case with the standby units out of service. */
+  return state == BW_SERVICE_FIRM ? _("firm capacity") : _("all in service");
+}
+
+char *
+bw_label_load_case (const BwLoadCase *c)
+{
+  g_return_val_if_fail (c != NULL, g_strdup (""));
+  /* TRANSLATORS: a load case: flow, design temperature, service state ("maximum day, coldest,
+   * firm capacity"). */
+  return g_strdup_printf (_("%s, %s, %s"), bw_label_flow_kind (c->flow),
+                          bw_label_temp_kind (c->temp), bw_label_service_state (c->service));
+}

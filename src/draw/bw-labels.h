@@ -1,0 +1,32 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bw-labels.h: the engine's readable labels (marked N_() there, kept English) in the reader's
+ * language, for the workbench and the report pages. Ids, file keywords and CLI output never go
+ * through these. */
+#pragma once
+
+#include <glib.h>
+
+#include "engine/bw-criteria.h"
+#include "engine/bw-params.h"
+#include "engine/bw-project.h"
+#include "engine/bw-quantity.h"
+
+G_BEGIN_DECLS
+
+/* A label from one of the engine's tables (parameter label or help, quantity label, element
+ * label), translated. Borrowed: the catalogue's string, or LABEL itself. */
+const char *bw_label_text (const char *label);
+/* The readable label of TYPE ("rapid-mix tank"), translated. */
+const char *bw_label_process_type (BwProcessType type);
+/* Choice INDEX of SPEC as a person reads it; the file keyword itself is not changed. */
+const char *bw_label_choice (const BwParamSpec *spec, int index);
+/* "pass", "warn", "fail", "n/a", translated (context "check"). */
+const char *bw_label_check_status (BwCheckStatus status);
+const char *bw_label_flow_kind (BwFlowKind kind);
+const char *bw_label_temp_kind (BwTempKind kind);
+/* "all in service" or "firm capacity", translated. */
+const char *bw_label_service_state (BwServiceState state);
+/* "maximum day, coldest, firm capacity", composed in the reader's language. A new string. */
+char *bw_label_load_case (const BwLoadCase *c);
+
+G_END_DECLS
