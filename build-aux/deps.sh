@@ -11,6 +11,8 @@ BW_PACKAGES=(
   check python3 python3-iapws python3-fluids python3-numpy units
   poppler-utils librsvg2-bin xvfb xauth xdotool
   desktop-file-utils appstream-util gettext
+  # the install check (build-aux/test-install): launcher, GIO, MIME and icon caches
+  libgtk-4-bin libglib2.0-bin xdg-utils shared-mime-info
   # translations: msgfmt/xgettext (gettext), and the es_ES source data that localedef builds
   # the Spanish test locale from (locales)
   locales

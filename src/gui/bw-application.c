@@ -14,6 +14,7 @@
 #include "gui/bw-window-private.h"
 #include "gui/bw-window.h"
 #include "io/bw-project-xml.h"
+#include "io/bw-xml.h"
 
 struct _BwApplication
 {
@@ -161,12 +162,9 @@ bw_application_dup_autosave_dir (void)
 char *
 bw_application_dup_demo_path (void)
 {
-  char *p = g_build_filename (BW_SOURCE_DATADIR, "examples", "marrowby-demo.bwproj", NULL);
+  char *p = bw_data_find ("examples" G_DIR_SEPARATOR_S "marrowby-demo.bwproj");
 
-  if (g_file_test (p, G_FILE_TEST_EXISTS))
-    return p;
-  g_free (p);
-  return g_build_filename (BW_DATADIR, "examples", "marrowby-demo.bwproj", NULL);
+  return p ? p : g_build_filename (BW_DATADIR, "examples", "marrowby-demo.bwproj", NULL);
 }
 
 /* --- windows --- */

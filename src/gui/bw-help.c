@@ -6,6 +6,7 @@
 #include "config.h"
 
 #include "gui/bw-help.h"
+#include "io/bw-xml.h"
 
 #include <glib/gi18n.h>
 #include <string.h>
@@ -17,7 +18,9 @@ char *
 bw_help_find_manual (GError **error)
 {
   const char *env = g_getenv ("BASINWRIGHT_DOCDIR");
-  g_autofree char *source = g_build_filename (BW_SOURCE_DATADIR, "..", "docs", "manual.md", NULL);
+  g_autofree char *source = bw_running_uninstalled ()
+                              ? g_build_filename (BW_SOURCE_DATADIR, "..", "docs", "manual.md", NULL)
+                              : NULL;
   g_autofree char *installed = g_build_filename (BW_DOCDIR, "manual.md", NULL);
   g_autofree char *from_env = env && env[0] ? g_build_filename (env, "manual.md", NULL) : NULL;
   const char *tried[] = { from_env, source, installed };
@@ -25,9 +28,13 @@ bw_help_find_manual (GError **error)
   for (guint i = 0; i < G_N_ELEMENTS (tried); i++)
     if (tried[i] && g_file_test (tried[i], G_FILE_TEST_IS_REGULAR))
       return g_strdup (tried[i]);
-  g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_NOENT,
-               _("The manual was not found (looked for %s%s%s and %s)"),
-               from_env ? from_env : "", from_env ? ", " : "", source, installed);
+  if (from_env == NULL && source == NULL)
+    g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_NOENT, _("The manual was not found (looked for %s)"),
+                 installed);
+  else
+    g_set_error (error, G_FILE_ERROR, G_FILE_ERROR_NOENT,
+                 _("The manual was not found (looked for %s%s%s and %s)"), from_env ? from_env : "",
+                 from_env && source ? ", " : "", source ? source : "", installed);
   return NULL;
 }
 

@@ -208,11 +208,29 @@ bw_xml_validate (xmlDoc *doc, const char *schema_path, const char *name, GError 
   return TRUE;
 }
 
+gboolean
+bw_running_uninstalled (void)
+{
+  static gsize once = 0;
+  static gboolean uninstalled = FALSE;
+
+  if (g_once_init_enter (&once))
+    {
+      /* Linux names the running program's file here; elsewhere (no /proc) the program counts
+       * as installed, which is the safe side: it then reads only the installed data. */
+      g_autofree char *exe = g_file_read_link ("/proc/self/exe", NULL);
+      gsize n = strlen (BW_BUILD_ROOT);
+      uninstalled = exe != NULL && strncmp (exe, BW_BUILD_ROOT, n) == 0 && exe[n] == G_DIR_SEPARATOR;
+      g_once_init_leave (&once, 1);
+    }
+  return uninstalled;
+}
+
 char *
 bw_data_find (const char *relative)
 {
   const char *env = g_getenv ("BW_DATADIR");
-  const char *const dirs[] = { env, BW_SOURCE_DATADIR, BW_DATADIR };
+  const char *const dirs[] = { env, bw_running_uninstalled () ? BW_SOURCE_DATADIR : NULL, BW_DATADIR };
 
   for (guint i = 0; i < G_N_ELEMENTS (dirs); i++)
     {

@@ -35,9 +35,14 @@ xmlDoc *bw_xml_read_memory (const char *data, gsize len, const char *name, GErro
  * becomes the error. NAME stands for the document in messages. */
 gboolean bw_xml_validate (xmlDoc *doc, const char *schema_path, const char *name, GError **error);
 
-/* Finds a shipped data file (e.g. "basinwright-project.rng" or "criteria"): $BW_DATADIR, then
- * the source tree's data/ (a build run from the tree), then the installed data directory.
- * Returns NULL when none exists. */
+/* TRUE when the running program is the one in the build tree it was compiled in (a developer's
+ * run or a test), FALSE for an installed copy: only then do the source tree's data/ and docs/
+ * stand in for the installed ones, so an install never reads the checkout it was built from. */
+gboolean bw_running_uninstalled (void);
+
+/* Finds a shipped data file (e.g. "basinwright-project.rng" or "criteria"): $BW_DATADIR, then,
+ * for a program run from its build tree, the source tree's data/, then the installed data
+ * directory. Returns NULL when none exists. */
 char *bw_data_find (const char *relative);
 
 /* Writes DATA to PATH atomically: a temporary file in the same folder, fsync, rename, fsync of

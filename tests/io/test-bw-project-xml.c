@@ -801,6 +801,34 @@ START_TEST (test_criteria_bad_files)
 }
 END_TEST
 
+/* A test program runs from its build tree, so the source tree's data/ stands in for the
+ * installed one; $BW_DATADIR comes before both. (That an installed copy ignores the checkout is
+ * shown by build-aux/test-install.) */
+START_TEST (test_data_find_order)
+{
+  g_autofree char *from_source = NULL;
+  g_autofree char *from_env = NULL;
+  g_autofree char *fake = g_build_filename (tmpdir, "criteria.rng", NULL);
+  g_autofree char *expected = g_build_filename (BW_SOURCE_DATADIR, "criteria.rng", NULL);
+  g_autofree char *old = g_strdup (g_getenv ("BW_DATADIR"));
+
+  ck_assert (bw_running_uninstalled ());
+  g_unsetenv ("BW_DATADIR");
+  from_source = bw_data_find ("criteria.rng");
+  ck_assert_str_eq (from_source, expected);
+  ck_assert_ptr_null (bw_data_find ("no-such-file.rng"));
+
+  ck_assert (g_file_set_contents (fake, "<grammar/>", -1, NULL));
+  g_setenv ("BW_DATADIR", tmpdir, TRUE);
+  from_env = bw_data_find ("criteria.rng");
+  if (old)
+    g_setenv ("BW_DATADIR", old, TRUE);
+  else
+    g_unsetenv ("BW_DATADIR");
+  ck_assert_str_eq (from_env, fake);
+}
+END_TEST
+
 Suite *
 bw_test_suite (void)
 {
@@ -821,6 +849,7 @@ bw_test_suite (void)
   tcase_add_test (tc, test_project_validate_records);
   tcase_add_test (tc, test_project_size_limit);
   tcase_add_test (tc, test_save_atomic_keeps_old_file);
+  tcase_add_test (tc, test_data_find_order);
   suite_add_tcase (s, tc);
 
   tc = tcase_create ("criteria");
