@@ -3,6 +3,7 @@
 #include "config.h"
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 #include <math.h>
 
@@ -14,7 +15,7 @@ bw_check_finite (double value, const char *field, GError **error)
   if (isfinite (value))
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-               "%s: the value is not a finite number", field);
+               BW_("%s: the value is not a finite number"), field);
   return FALSE;
 }
 
@@ -24,7 +25,7 @@ bw_check_result (double value, const char *field, const char *what, GError **err
   if (isfinite (value))
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: the value is too large: the %s would not be a finite number", field, what);
+               BW_("%s: the value is too large: the %s would not be a finite number"), field, what);
   return FALSE;
 }
 
@@ -36,7 +37,7 @@ bw_check_positive (double value, const char *field, GError **error)
   if (value > 0.0)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: must be greater than zero (got %g)", field, value);
+               BW_("%s: must be greater than zero (got %g)"), field, value);
   return FALSE;
 }
 
@@ -48,7 +49,7 @@ bw_check_nonnegative (double value, const char *field, GError **error)
   if (value >= 0.0)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: must not be negative (got %g)", field, value);
+               BW_("%s: must not be negative (got %g)"), field, value);
   return FALSE;
 }
 
@@ -61,7 +62,7 @@ bw_check_range (double value, double lo, double hi, const char *field, const cha
   if (value >= lo && value <= hi)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: %g %s is outside the valid range %g to %g %s", field, value,
+               BW_("%s: %g %s is outside the valid range %g to %g %s"), field, value,
                unit_label ? unit_label : "", lo, hi, unit_label ? unit_label : "");
   return FALSE;
 }

@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Exact definitions, NIST SP 811 (2008) Appendix B and the 1959 international yard and pound. */
 #define FT      0.3048                      /* m */
@@ -185,32 +186,61 @@ static const UnitDef unit_table[] = {
 /* SI unit of each kind: the first table row with factor 1 and offset 0 for that kind. Kinds that
  * have no such row (temperature: K is listed) are found the same way. */
 static const char *const kind_names[BW_N_KINDS] = {
-  [BW_KIND_LENGTH] = "length",
-  [BW_KIND_AREA] = "area",
-  [BW_KIND_VOLUME] = "volume",
-  [BW_KIND_FLOW] = "flow",
-  [BW_KIND_VELOCITY] = "velocity",
-  [BW_KIND_SURFACE_LOADING] = "surface loading",
-  [BW_KIND_WEIR_LOADING] = "weir loading",
-  [BW_KIND_TIME] = "time",
-  [BW_KIND_POWER] = "power",
-  [BW_KIND_TEMPERATURE] = "temperature",
-  [BW_KIND_DENSITY] = "density",
-  [BW_KIND_DYNAMIC_VISCOSITY] = "dynamic viscosity",
-  [BW_KIND_KINEMATIC_VISCOSITY] = "kinematic viscosity",
-  [BW_KIND_CONCENTRATION] = "concentration",
-  [BW_KIND_ROTATIONAL_SPEED] = "rotational speed",
-  [BW_KIND_ANGLE] = "angle",
-  [BW_KIND_HEAD] = "head",
-  [BW_KIND_MASS] = "mass",
-  [BW_KIND_MASS_FLOW] = "mass flow",
-  [BW_KIND_RATE] = "rate",
-  [BW_KIND_FRACTION] = "fraction",
-  [BW_KIND_MOBILITY] = "electrophoretic mobility",
-  [BW_KIND_POTENTIAL] = "electric potential",
-  [BW_KIND_MOLAR_CONCENTRATION] = "molar concentration",
-  [BW_KIND_TURBIDITY] = "turbidity",
-  [BW_KIND_NUMBER] = "number",
+  [BW_KIND_LENGTH] = BW_N_("length"),
+  [BW_KIND_AREA] = BW_N_("area"),
+  [BW_KIND_VOLUME] = BW_N_("volume"),
+  [BW_KIND_FLOW] = BW_N_("flow"),
+  [BW_KIND_VELOCITY] = BW_N_("velocity"),
+  [BW_KIND_SURFACE_LOADING] = BW_N_("surface loading"),
+  [BW_KIND_WEIR_LOADING] = BW_N_("weir loading"),
+  [BW_KIND_TIME] = BW_N_("time"),
+  [BW_KIND_POWER] = BW_N_("power"),
+  [BW_KIND_TEMPERATURE] = BW_N_("temperature"),
+  [BW_KIND_DENSITY] = BW_N_("density"),
+  [BW_KIND_DYNAMIC_VISCOSITY] = BW_N_("dynamic viscosity"),
+  [BW_KIND_KINEMATIC_VISCOSITY] = BW_N_("kinematic viscosity"),
+  [BW_KIND_CONCENTRATION] = BW_N_("concentration"),
+  [BW_KIND_ROTATIONAL_SPEED] = BW_N_("rotational speed"),
+  [BW_KIND_ANGLE] = BW_N_("angle"),
+  [BW_KIND_HEAD] = BW_N_("head"),
+  [BW_KIND_MASS] = BW_N_("mass"),
+  [BW_KIND_MASS_FLOW] = BW_N_("mass flow"),
+  [BW_KIND_RATE] = BW_N_("rate"),
+  [BW_KIND_FRACTION] = BW_N_("fraction"),
+  [BW_KIND_MOBILITY] = BW_N_("electrophoretic mobility"),
+  [BW_KIND_POTENTIAL] = BW_N_("electric potential"),
+  [BW_KIND_MOLAR_CONCENTRATION] = BW_N_("molar concentration"),
+  [BW_KIND_TURBIDITY] = BW_N_("turbidity"),
+  [BW_KIND_NUMBER] = BW_N_("number"),
+};
+/* The same names with their article, for messages ("a length is wanted"). */
+static const char *const kind_names_a[BW_N_KINDS] = {
+  [BW_KIND_LENGTH] = BW_N_("a length"),
+  [BW_KIND_AREA] = BW_N_("an area"),
+  [BW_KIND_VOLUME] = BW_N_("a volume"),
+  [BW_KIND_FLOW] = BW_N_("a flow"),
+  [BW_KIND_VELOCITY] = BW_N_("a velocity"),
+  [BW_KIND_SURFACE_LOADING] = BW_N_("a surface loading"),
+  [BW_KIND_WEIR_LOADING] = BW_N_("a weir loading"),
+  [BW_KIND_TIME] = BW_N_("a time"),
+  [BW_KIND_POWER] = BW_N_("a power"),
+  [BW_KIND_TEMPERATURE] = BW_N_("a temperature"),
+  [BW_KIND_DENSITY] = BW_N_("a density"),
+  [BW_KIND_DYNAMIC_VISCOSITY] = BW_N_("a dynamic viscosity"),
+  [BW_KIND_KINEMATIC_VISCOSITY] = BW_N_("a kinematic viscosity"),
+  [BW_KIND_CONCENTRATION] = BW_N_("a concentration"),
+  [BW_KIND_ROTATIONAL_SPEED] = BW_N_("a rotational speed"),
+  [BW_KIND_ANGLE] = BW_N_("an angle"),
+  [BW_KIND_HEAD] = BW_N_("a head"),
+  [BW_KIND_MASS] = BW_N_("a mass"),
+  [BW_KIND_MASS_FLOW] = BW_N_("a mass flow"),
+  [BW_KIND_RATE] = BW_N_("a rate"),
+  [BW_KIND_FRACTION] = BW_N_("a fraction"),
+  [BW_KIND_MOBILITY] = BW_N_("an electrophoretic mobility"),
+  [BW_KIND_POTENTIAL] = BW_N_("an electric potential"),
+  [BW_KIND_MOLAR_CONCENTRATION] = BW_N_("a molar concentration"),
+  [BW_KIND_TURBIDITY] = BW_N_("a turbidity"),
+  [BW_KIND_NUMBER] = BW_N_("a number"),
 };
 
 /* Display units: [kind][system] by ASCII spelling. */
@@ -472,12 +502,12 @@ bw_unit_lookup (const char *spelling, BwQuantityKind kind, const char *field, GE
   g_return_val_if_fail (spelling != NULL, NULL);
   g_return_val_if_fail (kind < BW_N_KINDS, NULL);
   if (field == NULL)
-    field = "value";
+    field = BW_("value");
 
   if (!g_utf8_validate (spelling, -1, NULL))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: the unit is not valid UTF-8 text", field);
+                   BW_("%s: the unit is not valid UTF-8 text"), field);
       return NULL;
     }
   name = normalise_unit (spelling);
@@ -492,29 +522,28 @@ bw_unit_lookup (const char *spelling, BwQuantityKind kind, const char *field, GE
   if (ambiguous)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_UNKNOWN_UNIT,
-                   "%s: the unit '%s' is ambiguous; mind upper and lower case", field, spelling);
+                   BW_("%s: the unit '%s' is ambiguous; mind upper and lower case"), field, spelling);
       return NULL;
     }
   if (kind == BW_KIND_NUMBER)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_WRONG_KIND,
-                   "%s: a plain number is wanted, without a unit ('%s')", field, spelling);
+                   BW_("%s: a plain number is wanted, without a unit ('%s')"), field, spelling);
       return NULL;
     }
   d = find_unit (name, kind, TRUE, &ambiguous);
   if (d)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_WRONG_KIND,
-                   "%s: '%s' is a unit of %s, but %s %s is wanted", field, spelling,
-                   kind_names[d->unit.kind], strchr ("aeiou", kind_names[kind][0]) ? "an" : "a",
-                   kind_names[kind]);
+                   BW_("%s: '%s' is a unit of %s, but %s is wanted"), field, spelling,
+                   BW_(kind_names[d->unit.kind]), BW_(kind_names_a[kind]));
       return NULL;
     }
   {
     g_autofree char *examples = unit_examples (kind);
     g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_UNKNOWN_UNIT,
-                 "%s: unknown unit '%s' (for a %s use e.g. %s)", field, spelling,
-                 kind_names[kind], examples);
+                 BW_("%s: unknown unit '%s' (for %s use e.g. %s)"), field, spelling,
+                 BW_(kind_names_a[kind]), examples);
   }
   return NULL;
 }
@@ -574,7 +603,7 @@ bw_units_parse (const char *text, BwQuantityKind kind, const char *bare_unit, co
   g_return_val_if_fail (kind < BW_N_KINDS, FALSE);
   g_return_val_if_fail (out_si != NULL, FALSE);
   if (field == NULL)
-    field = "value";
+    field = BW_("value");
 
   if (text == NULL)
     text = "";
@@ -583,7 +612,7 @@ bw_units_parse (const char *text, BwQuantityKind kind, const char *bare_unit, co
     p++;
   if (*p == '\0')
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "%s: no value given", field);
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_("%s: no value given"), field);
       return FALSE;
     }
 
@@ -593,17 +622,17 @@ bw_units_parse (const char *text, BwQuantityKind kind, const char *bare_unit, co
     if (q[0] == '0' && (q[1] == 'x' || q[1] == 'X'))
       {
         g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                     "%s: '%s' is not a decimal number", field, text);
+                     BW_("%s: '%s' is not a decimal number"), field, text);
         return FALSE;
       }
     if (!g_ascii_isdigit (*q) && *q != '.')
       {
         if (g_ascii_strncasecmp (q, "nan", 3) == 0 || g_ascii_strncasecmp (q, "inf", 3) == 0)
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                       "%s: '%s' is not a finite number", field, text);
+                       BW_("%s: '%s' is not a finite number"), field, text);
         else
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "%s: '%s' does not start with a number", field, text);
+                       BW_("%s: '%s' does not start with a number"), field, text);
         return FALSE;
       }
   }
@@ -613,19 +642,19 @@ bw_units_parse (const char *text, BwQuantityKind kind, const char *bare_unit, co
   if (end == p)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: '%s' does not start with a number", field, text);
+                   BW_("%s: '%s' does not start with a number"), field, text);
       return FALSE;
     }
   if (errno == ERANGE && (value == 0.0 || fabs (value) < 1e-300))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "%s: '%s' is too small to represent", field, text);
+                   BW_("%s: '%s' is too small to represent"), field, text);
       return FALSE;
     }
   if (errno == ERANGE || !isfinite (value))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                   "%s: '%s' is too large a number", field, text);
+                   BW_("%s: '%s' is too large a number"), field, text);
       return FALSE;
     }
 
@@ -635,7 +664,7 @@ bw_units_parse (const char *text, BwQuantityKind kind, const char *bare_unit, co
   if (*p == ',' && g_ascii_isdigit (p[1]))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: '%s': use '.' as the decimal point", field, text);
+                   BW_("%s: '%s': use '.' as the decimal point"), field, text);
       return FALSE;
     }
 
@@ -657,7 +686,7 @@ bw_units_parse (const char *text, BwQuantityKind kind, const char *bare_unit, co
   if (!isfinite (si))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                   "%s: '%s' is too large a number", field, text);
+                   BW_("%s: '%s' is too large a number"), field, text);
       return FALSE;
     }
   *out_si = si;

@@ -215,6 +215,37 @@ START_TEST (test_numbers_use_the_decimal_comma)
 }
 END_TEST
 
+/* The engine's own messages (bw-units.c, bw-error.c, through bw-i18n.h) reach the field's
+ * in-place error in Spanish, the quantity kinds with them. */
+START_TEST (test_engine_messages_in_spanish)
+{
+  BwWindow *w = demo_window ();
+  GtkWidget *e, *err;
+  const char *shown;
+
+  bw_window_select_unit (w, "north-sed");
+  e = bw_window_get_field_widget (w, "length");
+  gtk_editable_set_text (GTK_EDITABLE (e), "12 kg");
+  g_signal_emit_by_name (e, "activate");
+  bw_gui_test_pump (5);
+  err = bw_window_get_field_error (w, "length");
+  ck_assert (gtk_widget_get_visible (err));
+  shown = gtk_label_get_text (GTK_LABEL (err));
+  ck_assert_msg (strstr (shown, "«kg» es una unidad de masa, pero se espera una longitud") != NULL,
+                 "not the Spanish message: %s", shown);
+  ck_assert_msg (strstr (shown, "is a unit of") == NULL, "English left in: %s", shown);
+  /* A number the parser refuses, in Spanish too. */
+  gtk_editable_set_text (GTK_EDITABLE (e), "abc");
+  g_signal_emit_by_name (e, "activate");
+  bw_gui_test_pump (5);
+  shown = gtk_label_get_text (GTK_LABEL (err));
+  ck_assert_msg (strstr (shown, "«abc» no empieza por un número") != NULL, "%s", shown);
+  ck_assert_double_eq (bw_process_unit_get (bw_project_find_unit (bw_window_get_project (w), "north-sed", NULL),
+                                            "length"), 56.0);
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_locale_helpers)
 {
   char *s;
@@ -256,6 +287,7 @@ i18n_suite (void)
   tcase_add_test (tc, test_spanish_strings_show);
   tcase_add_test (tc, test_engine_text_in_spanish);
   tcase_add_test (tc, test_numbers_use_the_decimal_comma);
+  tcase_add_test (tc, test_engine_messages_in_spanish);
   tcase_add_test (tc, test_locale_helpers);
   suite_add_tcase (s, tc);
   return s;
