@@ -208,6 +208,32 @@ START_TEST (test_chem_page_shows_demo)
 }
 END_TEST
 
+/* The feed and sludge tables are wider than the page's share of a 1024 px window: they scroll
+ * sideways on their own, so they no longer set the page's width (its text wraps to the window,
+ * the chart fits). */
+START_TEST (test_chem_tables_do_not_widen_the_page)
+{
+  BwWindow *w = demo_window ();
+  BwChemView *v = chem_view (w);
+  GtkWidget *grid = bw_chem_view_get_widget (v, "results");
+  GtkWidget *table_scroller = gtk_widget_get_ancestor (grid, GTK_TYPE_SCROLLED_WINDOW);
+  GtkWidget *content;
+  int grid_min, grid_nat, page_min, page_nat;
+
+  ck_assert_ptr_nonnull (table_scroller);
+  content = gtk_widget_get_parent (table_scroller);
+  ck_assert (GTK_IS_BOX (content));
+  gtk_widget_measure (grid, GTK_ORIENTATION_HORIZONTAL, -1, &grid_min, &grid_nat, NULL, NULL);
+  gtk_widget_measure (content, GTK_ORIENTATION_HORIZONTAL, -1, &page_min, &page_nat, NULL, NULL);
+  /* The tables need more than the page's minimum: they would have set it. */
+  ck_assert_int_gt (grid_min, page_min);
+  /* 740 px: a 1024 px window less the plant list (256 px) and the page margins (derived from
+   * the window's 1024x700 screenshot). */
+  ck_assert_int_le (page_min, 740);
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_chem_typed_dose_reaches_rapid_mix)
 {
   BwWindow *w = demo_window ();
@@ -628,6 +654,7 @@ chem_suite (void)
 
   tcase_set_timeout (tc, 60);
   tcase_add_test (tc, test_chem_page_shows_demo);
+  tcase_add_test (tc, test_chem_tables_do_not_widen_the_page);
   tcase_add_test (tc, test_chem_typed_dose_reaches_rapid_mix);
   tcase_add_test (tc, test_chem_refused_entries_flagged);
   tcase_add_test (tc, test_chem_import_use_dose_and_chart);
