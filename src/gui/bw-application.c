@@ -159,6 +159,25 @@ bw_application_dup_autosave_dir (void)
   return g_build_filename (g_get_user_cache_dir (), "basinwright", "autosave", NULL);
 }
 
+gboolean
+bw_application_choose_renderer (void)
+{
+  const char *chosen = g_getenv ("GSK_RENDERER");
+  g_autoptr (GDir) dri = NULL;
+  const char *name;
+
+  if (chosen && chosen[0])
+    return FALSE;
+  dri = g_dir_open ("/dev/dri", 0, NULL);
+  while (dri && (name = g_dir_read_name (dri)))
+    if (g_str_has_prefix (name, "renderD"))
+      return FALSE;
+  /* Measured with tests/bench/bench-gui on a 2-core machine without a GPU (DEVELOPERS.md):
+   * an edit's redraw paints in about 2 ms with cairo, about 50 ms with GL in llvmpipe. */
+  g_setenv ("GSK_RENDERER", "cairo", TRUE);
+  return TRUE;
+}
+
 char *
 bw_application_dup_demo_path (void)
 {

@@ -44,4 +44,10 @@ char *bw_application_dup_autosave_dir (void);
 /* The demo project shipped with Basinwright (source tree or installed data). */
 char *bw_application_dup_demo_path (void);
 
+/* Without a GPU (no render node under /dev/dri), GTK's OpenGL renderer runs in software
+ * (llvmpipe) and paints the window about ten times slower than its cairo renderer: then, and
+ * only when the user has not chosen one (GSK_RENDERER), the workbench asks for cairo. Call
+ * before GTK starts. Returns TRUE when it chose cairo. */
+gboolean bw_application_choose_renderer (void);
+
 G_END_DECLS

@@ -697,10 +697,16 @@ cases_refresh (BwWindow *self)
       GtkWidget *b = gtk_list_box_row_get_child (GTK_LIST_BOX_ROW (row));
       const BwLoadCase *c = &g_array_index (cases, BwLoadCase, i);
       g_autofree char *label = bw_label_load_case (c);
-      gtk_check_button_set_label (GTK_CHECK_BUTTON (b), label);
-      gtk_check_button_set_active (GTK_CHECK_BUTTON (b), c->enabled);
-      gtk_widget_remove_css_class (b, "error");
-      gtk_widget_set_tooltip_text (b, NULL);
+      /* Only what changed: after an edit elsewhere the cases are as they were, and resetting
+       * each label and style would re-measure and restyle the whole list. */
+      if (g_strcmp0 (gtk_check_button_get_label (GTK_CHECK_BUTTON (b)), label) != 0)
+        gtk_check_button_set_label (GTK_CHECK_BUTTON (b), label);
+      if (gtk_check_button_get_active (GTK_CHECK_BUTTON (b)) != c->enabled)
+        gtk_check_button_set_active (GTK_CHECK_BUTTON (b), c->enabled);
+      if (gtk_widget_has_css_class (b, "error"))
+        gtk_widget_remove_css_class (b, "error");
+      if (gtk_widget_get_tooltip_text (b) != NULL)
+        gtk_widget_set_tooltip_text (b, NULL);
     }
   self->updating = FALSE;
 }
@@ -775,9 +781,10 @@ criteria_refresh (BwWindow *self)
       g_autofree char *note = g_strdup_printf (_("%s%s%s%s Limits are only as good as their "
                                                  "citation: check the edition in force."),
                                                count, d ? ": " : "", d ? d : "", stop ? "" : ".");
-      gtk_label_set_text (self->criteria_note, note);
+      if (g_strcmp0 (gtk_label_get_text (self->criteria_note), note) != 0)
+        gtk_label_set_text (self->criteria_note, note);
     }
-  else
+  else if (g_strcmp0 (gtk_label_get_text (self->criteria_note), self->criteria_error ? self->criteria_error : "") != 0)
     gtk_label_set_text (self->criteria_note, self->criteria_error ? self->criteria_error : "");
 }
 

@@ -59,6 +59,10 @@ struct _BwWindow
   GtkLabel *results_heading;
   GtkToggleButton *every_case_toggle;
   GtkGrid *results_grid;
+  /* The results table's shape (unit, columns, rows and their checks) when last built, and its
+   * labels in the order they were made: an edit that keeps the shape updates them in place. */
+  char *results_shape;
+  GPtrArray *results_labels;
   GtkLabel *checks_summary;
   GtkListBox *checks_list;
   GtkGrid *basis_grid;

@@ -340,26 +340,38 @@ nav_row (const char *id, const char *train_id, const char *name, const char *kin
   return row;
 }
 
+/* Sets TEXT on LABEL only when it differs: an unchanged label keeps its layout, so a refresh
+ * after an edit re-measures only what changed. */
+static void
+label_update (GtkLabel *label, const char *text)
+{
+  if (g_strcmp0 (gtk_label_get_text (label), text) != 0)
+    gtk_label_set_text (label, text);
+}
+
 static void
 set_dot (BwWindow *self, GtkWidget *row)
 {
-  GtkLabel *dot = g_object_get_data (G_OBJECT (row), "bw-dot");
+  GtkWidget *dot = g_object_get_data (G_OBJECT (row), "bw-dot");
   const char *id = g_object_get_data (G_OBJECT (row), "bw-id");
   int s = id ? worst_status (self, id) : -1;
   static const char *const classes[] = { "bw-dot-pass", "bw-dot-warn", "bw-dot-fail" };
+  const char *want = s < 0 ? NULL : classes[s == BW_CHECK_FAIL ? 2 : s == BW_CHECK_WARN ? 1 : 0];
+  const char *tip = s < 0                ? NULL
+                    : s == BW_CHECK_FAIL ? _("a required criterion fails")
+                    : s == BW_CHECK_WARN ? _("outside a preferred range")
+                                         : _("every check passes");
 
+  /* Only what changed: a CSS class added or removed restyles the row, which after every edit
+   * of every row was most of the plant list's cost. */
   for (guint i = 0; i < G_N_ELEMENTS (classes); i++)
-    gtk_widget_remove_css_class (GTK_WIDGET (dot), classes[i]);
-  gtk_label_set_text (dot, s < 0 ? "" : "●");
-  if (s >= 0)
-    {
-      gtk_widget_add_css_class (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? "bw-dot-fail"
-                                                  : s == BW_CHECK_WARN ? "bw-dot-warn"
-                                                                       : "bw-dot-pass");
-      gtk_widget_set_tooltip_text (GTK_WIDGET (dot), s == BW_CHECK_FAIL   ? _("a required criterion fails")
-                                                     : s == BW_CHECK_WARN ? _("outside a preferred range")
-                                                                          : _("every check passes"));
-    }
+    if (classes[i] != want && gtk_widget_has_css_class (dot, classes[i]))
+      gtk_widget_remove_css_class (dot, classes[i]);
+  if (want && !gtk_widget_has_css_class (dot, want))
+    gtk_widget_add_css_class (dot, want);
+  label_update (GTK_LABEL (dot), s < 0 ? "" : "●");
+  if (tip && g_strcmp0 (gtk_widget_get_tooltip_text (dot), tip) != 0)
+    gtk_widget_set_tooltip_text (dot, tip);
 }
 
 static void
@@ -375,7 +387,7 @@ nav_refresh (BwWindow *self)
       if (!GTK_IS_LIST_BOX_ROW (row))
         continue;
       if (id && (u = locate (self->project, id, &t, &parent, &idx)))
-        gtk_label_set_text (g_object_get_data (G_OBJECT (row), "bw-name"), u->name ? u->name : u->id);
+        label_update (g_object_get_data (G_OBJECT (row), "bw-name"), u->name ? u->name : u->id);
       set_dot (self, row);
     }
 }
@@ -634,40 +646,104 @@ grid_clear (GtkGrid *grid)
     gtk_grid_remove (grid, child);
 }
 
-static GtkWidget *
-cell (GtkGrid *grid, int col, int row, const char *text, const char *css, double xalign)
+/* The results table is built once per shape and then updated in place: each label is made
+ * through a ResultsPass, which in a rebuild creates it (and records it), and in an update takes
+ * the next recorded one and changes only what differs. A text or class that did not change
+ * leaves the label's layout alone, so an edit re-measures only the values that moved. */
+typedef struct
 {
-  GtkWidget *l = gtk_label_new (text);
+  BwWindow *self;
+  gboolean reuse;
+  guint next;
+} ResultsPass;
 
-  gtk_label_set_xalign (GTK_LABEL (l), (float) xalign);
-  gtk_label_set_selectable (GTK_LABEL (l), FALSE);
-  if (css)
-    gtk_widget_add_css_class (l, css);
-  gtk_grid_attach (grid, l, col, row, 1, 1);
+static const char *const status_classes[] = { "bw-status-pass", "bw-status-warn", "bw-status-fail",
+                                              "bw-status-na" };
+
+/* Gives WIDGET the class WANT (or none) among the exclusive CLASSES, touching nothing else. */
+static void
+class_exclusive (GtkWidget *widget, const char *want, const char *const *classes, guint n)
+{
+  for (guint i = 0; i < n; i++)
+    if (g_strcmp0 (classes[i], want) != 0 && gtk_widget_has_css_class (widget, classes[i]))
+      gtk_widget_remove_css_class (widget, classes[i]);
+  if (want && !gtk_widget_has_css_class (widget, want))
+    gtk_widget_add_css_class (widget, want);
+}
+
+static void
+tooltip_update (GtkWidget *widget, const char *tip)
+{
+  if (g_strcmp0 (gtk_widget_get_tooltip_text (widget), tip) != 0)
+    gtk_widget_set_tooltip_text (widget, tip);
+}
+
+/* The next label of the table, with TEXT: new (recorded) in a rebuild, the recorded one in an
+ * update. Returns NULL in an update (the caller attaches only new labels). */
+static GtkLabel *
+pass_label (ResultsPass *p, const char *text, GtkLabel **existing)
+{
+  GtkLabel *l;
+
+  if (p->reuse)
+    {
+      g_assert (p->next < p->self->results_labels->len);
+      l = g_ptr_array_index (p->self->results_labels, p->next++);
+      label_update (l, text);
+      *existing = l;
+      return NULL;
+    }
+  l = GTK_LABEL (gtk_label_new (text));
+  g_ptr_array_add (p->self->results_labels, l);
+  *existing = l;
   return l;
+}
+
+static GtkWidget *
+cell (ResultsPass *p, int col, int row, const char *text, const char *css, double xalign)
+{
+  static const char *const governing[] = { "bw-governing" };
+  GtkLabel *l, *made = pass_label (p, text, &l);
+
+  if (made)
+    {
+      gtk_label_set_xalign (made, (float) xalign);
+      gtk_label_set_selectable (made, FALSE);
+      if (css && strcmp (css, "bw-governing") != 0)
+        gtk_widget_add_css_class (GTK_WIDGET (made), css);
+      gtk_grid_attach (p->self->results_grid, GTK_WIDGET (made), col, row, 1, 1);
+    }
+  /* Only the governing mark changes from one edit to the next. */
+  if (css == NULL || strcmp (css, "bw-governing") == 0)
+    class_exclusive (GTK_WIDGET (l), css, governing, 1);
+  return GTK_WIDGET (l);
 }
 
 /* A value with its load case in small print beneath it. */
 static void
-value_cell (GtkGrid *grid, int col, int row, const char *value, const char *case_label, gboolean governs)
+value_cell (ResultsPass *p, int col, int row, const char *value, const char *case_label, gboolean governs)
 {
-  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
-  GtkWidget *v = gtk_label_new (value);
-  GtkWidget *c = gtk_label_new (case_label);
+  static const char *const governing[] = { "bw-governing" };
+  GtkLabel *v, *c;
+  GtkLabel *made_v = pass_label (p, value, &v);
+  GtkLabel *made_c = pass_label (p, case_label, &c);
 
-  gtk_label_set_xalign (GTK_LABEL (v), 1);
-  gtk_label_set_xalign (GTK_LABEL (c), 1);
-  gtk_label_set_justify (GTK_LABEL (c), GTK_JUSTIFY_RIGHT);
-  gtk_label_set_wrap (GTK_LABEL (c), TRUE);
-  gtk_label_set_max_width_chars (GTK_LABEL (c), 14);
-  if (governs)
-    gtk_widget_add_css_class (v, "bw-governing");
-  gtk_widget_add_css_class (c, "dim-label");
-  gtk_widget_add_css_class (c, "caption");
-  gtk_box_append (GTK_BOX (box), v);
-  gtk_box_append (GTK_BOX (box), c);
-  g_object_set_data (G_OBJECT (box), "bw-text", v);
-  gtk_grid_attach (grid, box, col, row, 1, 1);
+  if (made_v)
+    {
+      GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+      gtk_label_set_xalign (made_v, 1);
+      gtk_label_set_xalign (made_c, 1);
+      gtk_label_set_justify (made_c, GTK_JUSTIFY_RIGHT);
+      gtk_label_set_wrap (made_c, TRUE);
+      gtk_label_set_max_width_chars (made_c, 14);
+      gtk_widget_add_css_class (GTK_WIDGET (made_c), "dim-label");
+      gtk_widget_add_css_class (GTK_WIDGET (made_c), "caption");
+      gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_v));
+      gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_c));
+      g_object_set_data (G_OBJECT (box), "bw-text", made_v);
+      gtk_grid_attach (p->self->results_grid, box, col, row, 1, 1);
+    }
+  class_exclusive (GTK_WIDGET (v), governs ? "bw-governing" : NULL, governing, 1);
 }
 
 static char *
@@ -710,6 +786,39 @@ governs (GArray *gov, const BwElementResult *el, int q, int c)
   return FALSE;
 }
 
+/* What decides which widgets the table has: the element, the columns, and per row the
+ * quantity, its checks (with or without a governing case) and, in the two-column view,
+ * whether both extremes are the same. Equal shapes have the same labels in the same order. */
+static char *
+results_shape (BwWindow *self, int e, gboolean every)
+{
+  GString *k = g_string_new (NULL);
+  const BwElementResult *el;
+
+  if (e < 0)
+    return g_string_free (k, FALSE);
+  g_string_append_printf (k, "%d/%d/%u", e, every, self->results->n_cases);
+  el = g_ptr_array_index (self->results->elements, e);
+  for (int q = 0; q < BW_N_QUANTITIES; q++)
+    {
+      const int lo = bw_results_extreme_case (self->results, (guint) e, (BwQuantity) q, FALSE);
+      const int hi = bw_results_extreme_case (self->results, (guint) e, (BwQuantity) q, TRUE);
+      if (lo < 0)
+        continue;
+      g_string_append_printf (k, "|%d", q);
+      for (guint i = 0; self->checks && i < self->checks->len; i++)
+        {
+          const BwCheck *ck = &g_array_index (self->checks, BwCheck, i);
+          if (ck->element == e && ck->criterion->quantity == (BwQuantity) q)
+            g_string_append_printf (k, ",%p%c", (const void *) ck->criterion,
+                                    ck->governing_case >= 0 ? 'g' : 'n');
+        }
+      if (!every)
+        g_string_append_c (k, el->values[lo].values[q] == el->values[hi].values[q] ? '=' : '<');
+    }
+  return g_string_free (k, FALSE);
+}
+
 static void
 results_rebuild (BwWindow *self)
 {
@@ -717,104 +826,122 @@ results_rebuild (BwWindow *self)
   const int e = element_of (self, self->selected_id);
   const gboolean every = gtk_toggle_button_get_active (self->every_case_toggle);
   const BwElementResult *el;
+  g_autofree char *shape = results_shape (self, e, every);
+  ResultsPass pass = { self, FALSE, 0 };
+  GtkLabel *l;
   int row = 1;
 
-  grid_clear (g);
+  if (e >= 0 && self->results_shape && strcmp (shape, self->results_shape) == 0)
+    pass.reuse = TRUE;
+  else
+    {
+      grid_clear (g);
+      g_ptr_array_set_size (self->results_labels, 0);
+      g_free (self->results_shape);
+      self->results_shape = g_steal_pointer (&shape);
+    }
   if (e < 0)
     {
       gtk_label_set_text (self->results_heading, _("Results"));
-      cell (g, 0, 0, self->results ? _("Select a unit or stage to see its results.")
-                                   : _("No results: the project does not evaluate (see the status bar)."),
+      cell (&pass, 0, 0, self->results ? _("Select a unit or stage to see its results.")
+                                       : _("No results: the project does not evaluate (see the status bar)."),
             "dim-label", 0);
+      /* Nothing to update in place next time: the next unit builds its table. */
+      g_clear_pointer (&self->results_shape, g_free);
       return;
     }
   el = g_ptr_array_index (self->results->elements, e);
   {
     g_autofree char *h = g_strdup_printf (_("Results: %s"), el->label);
-    gtk_label_set_text (self->results_heading, h);
-    gtk_widget_set_tooltip_text (GTK_WIDGET (self->results_heading),
-                                 _("Every enabled load case, from the engine. A value that governs a "
-                                   "criterion is underlined; hover a criterion for its governing case."));
+    label_update (self->results_heading, h);
+    tooltip_update (GTK_WIDGET (self->results_heading),
+                    _("Every enabled load case, from the engine. A value that governs a "
+                      "criterion is underlined; hover a criterion for its governing case."));
   }
-  cell (g, 0, 0, _("quantity and criteria"), "bw-col-head", 0);
+  cell (&pass, 0, 0, _("quantity and criteria"), "bw-col-head", 0);
   if (every)
     for (guint c = 0; c < self->results->n_cases; c++)
       {
         g_autofree char *h = case_short (&self->results->cases[c]);
-        cell (g, 1 + (int) c, 0, h, "bw-col-head", 1);
+        cell (&pass, 1 + (int) c, 0, h, "bw-col-head", 1);
       }
   else
     {
-      cell (g, 1, 0, _("smallest"), "bw-col-head", 1);
-      cell (g, 2, 0, _("largest"), "bw-col-head", 1);
+      cell (&pass, 1, 0, _("smallest"), "bw-col-head", 1);
+      cell (&pass, 2, 0, _("largest"), "bw-col-head", 1);
     }
   for (int q = 0; q < BW_N_QUANTITIES; q++)
     {
       const BwQuantityInfo *info = bw_quantity_info ((BwQuantity) q);
       const int lo = bw_results_extreme_case (self->results, (guint) e, (BwQuantity) q, FALSE);
       const int hi = bw_results_extreme_case (self->results, (guint) e, (BwQuantity) q, TRUE);
-      GArray *gov = g_array_new (FALSE, FALSE, sizeof (int));
-      GtkWidget *qbox, *qlabel;
+      GArray *gov;
+      GtkWidget *qbox = NULL;
+      GtkLabel *qlabel;
 
       if (lo < 0)
-        {
-          g_array_unref (gov);
-          continue;
-        }
+        continue;
+      gov = g_array_new (FALSE, FALSE, sizeof (int));
       /* The quantity, with the criteria that judge it beneath. */
-      qbox = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
-      qlabel = gtk_label_new (bw_label_text (info->label));
-      gtk_label_set_xalign (GTK_LABEL (qlabel), 0);
-      gtk_label_set_wrap (GTK_LABEL (qlabel), TRUE);
-      gtk_label_set_max_width_chars (GTK_LABEL (qlabel), 17);
-      gtk_box_append (GTK_BOX (qbox), qlabel);
-      g_object_set_data (G_OBJECT (qbox), "bw-text", qlabel);
-      gtk_grid_attach (g, qbox, 0, row, 1, 1);
+      if ((qlabel = pass_label (&pass, bw_label_text (info->label), &l)))
+        {
+          qbox = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
+          gtk_label_set_xalign (qlabel, 0);
+          gtk_label_set_wrap (qlabel, TRUE);
+          gtk_label_set_max_width_chars (qlabel, 17);
+          gtk_box_append (GTK_BOX (qbox), GTK_WIDGET (qlabel));
+          g_object_set_data (G_OBJECT (qbox), "bw-text", qlabel);
+          gtk_grid_attach (g, qbox, 0, row, 1, 1);
+        }
       for (guint i = 0; self->checks && i < self->checks->len; i++)
         {
           const BwCheck *ck = &g_array_index (self->checks, BwCheck, i);
-          GtkWidget *box, *chip, *l;
+          GtkLabel *chip, *lim_l, *made_chip, *made_lim;
           g_autofree char *lim = NULL;
           g_autofree char *tip = NULL;
           if (ck->element != e || ck->criterion->quantity != (BwQuantity) q)
             continue;
           g_array_append_val (gov, ck->governing_case);
-          box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
-          chip = gtk_label_new (bw_label_check_status (ck->status));
           lim = limit_text (ck, self->units);
-          l = gtk_label_new (lim);
-          gtk_widget_add_css_class (l, "caption");
-          gtk_widget_add_css_class (chip, "bw-status");
-          gtk_widget_add_css_class (chip, status_class (ck->status));
-          gtk_box_append (GTK_BOX (box), chip);
-          gtk_box_append (GTK_BOX (box), l);
-          gtk_widget_set_margin_start (box, 10);
+          made_chip = pass_label (&pass, bw_label_check_status (ck->status), &chip);
+          made_lim = pass_label (&pass, lim, &lim_l);
+          class_exclusive (GTK_WIDGET (chip), status_class (ck->status), status_classes,
+                           G_N_ELEMENTS (status_classes));
+          if (made_chip)
+            {
+              GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+              gtk_widget_add_css_class (GTK_WIDGET (made_lim), "caption");
+              gtk_widget_add_css_class (GTK_WIDGET (made_chip), "bw-status");
+              gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_chip));
+              gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_lim));
+              gtk_widget_set_margin_start (box, 10);
+              gtk_box_append (GTK_BOX (qbox), box);
+            }
           if (ck->governing_case >= 0)
             {
               g_autofree char *cl = bw_label_load_case (&self->results->cases[ck->governing_case]);
               g_autofree char *gv = bw_locale_format (ck->value, info->kind, self->units);
               g_autofree char *cc = case_compact (&self->results->cases[ck->governing_case]);
               g_autofree char *line = g_strdup_printf (_("governs: %s, %s"), gv, cc);
-              GtkWidget *gl = gtk_label_new (line);
+              GtkLabel *gl, *made_gl = pass_label (&pass, line, &gl);
               /* TRANSLATORS: criterion (status): value in load case */
               tip = g_strdup_printf (_("%s (%s): %s in %s"), ck->criterion->title,
                                      bw_label_check_status (ck->status), gv, cl);
-              gtk_label_set_xalign (GTK_LABEL (gl), 0);
-              gtk_label_set_wrap (GTK_LABEL (gl), TRUE);
-              gtk_label_set_max_width_chars (GTK_LABEL (gl), 24);
-              gtk_widget_add_css_class (gl, "caption");
-              gtk_widget_add_css_class (gl, "dim-label");
-              gtk_widget_set_margin_start (gl, 10);
-              gtk_box_append (GTK_BOX (qbox), box);
-              gtk_box_append (GTK_BOX (qbox), gl);
-              gtk_widget_set_tooltip_text (gl, tip);
+              if (made_gl)
+                {
+                  gtk_label_set_xalign (made_gl, 0);
+                  gtk_label_set_wrap (made_gl, TRUE);
+                  gtk_label_set_max_width_chars (made_gl, 24);
+                  gtk_widget_add_css_class (GTK_WIDGET (made_gl), "caption");
+                  gtk_widget_add_css_class (GTK_WIDGET (made_gl), "dim-label");
+                  gtk_widget_set_margin_start (GTK_WIDGET (made_gl), 10);
+                  gtk_box_append (GTK_BOX (qbox), GTK_WIDGET (made_gl));
+                }
+              tooltip_update (GTK_WIDGET (gl), tip);
             }
           else
-            {
-              tip = g_strdup (ck->criterion->title);
-              gtk_box_append (GTK_BOX (qbox), box);
-            }
-          gtk_widget_set_tooltip_text (box, tip);
+            tip = g_strdup (ck->criterion->title);
+          tooltip_update (gtk_widget_get_parent (GTK_WIDGET (chip)), tip);
         }
 #define GOVERNS(c) governs (gov, el, q, (c))
       if (every)
@@ -824,7 +951,7 @@ results_rebuild (BwWindow *self)
             g_autofree char *v = bw_quantity_set_has (s, (BwQuantity) q)
                                    ? bw_locale_format (s->values[q], info->kind, self->units)
                                    : g_strdup ("—");
-            cell (g, 1 + (int) c, row, v, GOVERNS ((int) c) ? "bw-governing" : NULL, 1);
+            cell (&pass, 1 + (int) c, row, v, GOVERNS ((int) c) ? "bw-governing" : NULL, 1);
           }
       else
         {
@@ -834,14 +961,22 @@ results_rebuild (BwWindow *self)
           g_autofree char *ca = case_compact (&self->results->cases[lo]);
           g_autofree char *cb = case_compact (&self->results->cases[hi]);
           gboolean same = vlo == vhi;
-          value_cell (g, 1, row, a, same ? _("the same in every case") : ca, GOVERNS (lo));
+          value_cell (&pass, 1, row, a, same ? _("the same in every case") : ca, GOVERNS (lo));
           if (!same)
-            value_cell (g, 2, row, b, cb, GOVERNS (hi));
+            value_cell (&pass, 2, row, b, cb, GOVERNS (hi));
         }
 #undef GOVERNS
       g_array_unref (gov);
       row++;
     }
+  g_assert (!pass.reuse || pass.next == self->results_labels->len);
+}
+
+GtkWidget *
+bw_window_get_results_grid (BwWindow *self)
+{
+  g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  return GTK_WIDGET (self->results_grid);
 }
 
 char *
@@ -1468,6 +1603,8 @@ bw_window_finalize (GObject *object)
 
   g_clear_pointer (&self->fields, g_ptr_array_unref);
   g_clear_pointer (&self->basis_fields, g_ptr_array_unref);
+  g_clear_pointer (&self->results_labels, g_ptr_array_unref);
+  g_clear_pointer (&self->results_shape, g_free);
   g_clear_pointer (&self->results, bw_results_free);
   g_clear_pointer (&self->pending, bw_results_free);
   g_clear_pointer (&self->checks, g_array_unref);
@@ -1576,6 +1713,7 @@ bw_window_init (BwWindow *self)
   gtk_widget_init_template (GTK_WIDGET (self));
   self->project = blank_project ();
   self->stack = bw_edit_stack_new ();
+  self->results_labels = g_ptr_array_new ();
   self->fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
   self->basis_fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
   self->units = BW_UNIT_SYSTEM_SI;

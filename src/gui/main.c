@@ -12,6 +12,7 @@ main (int argc, char *argv[])
 
   /* Before any widget: the locale from the environment and our translations. */
   bw_locale_init ();
+  bw_application_choose_renderer ();
   app = bw_application_new ();
   g_set_application_name ("Basinwright");
   return g_application_run (G_APPLICATION (app), argc, argv);

@@ -371,13 +371,18 @@ main (int argc, char *argv[])
   setvbuf (stdout, NULL, _IOLBF, 0); /* figures appear as they come */
   private_env ();
   demo = demo_path ();
+  /* The renderer the workbench itself would use here (GSK_RENDERER, else cairo without a GPU);
+   * the child of the cold start inherits it. */
+  bw_application_choose_renderer ();
   if (!gtk_init_check ())
     {
       fprintf (stderr, "bench-gui: no display (run it under xvfb-run -a)\n");
       return 77;
     }
-  printf ("bench-gui: GTK %u.%u.%u, display %s, demo %s\n", gtk_get_major_version (), gtk_get_minor_version (),
-          gtk_get_micro_version (), gdk_display_get_name (gdk_display_get_default ()), demo);
+  printf ("bench-gui: GTK %u.%u.%u, display %s, renderer %s, demo %s\n", gtk_get_major_version (),
+          gtk_get_minor_version (), gtk_get_micro_version (),
+          gdk_display_get_name (gdk_display_get_default ()),
+          g_getenv ("GSK_RENDERER") ? g_getenv ("GSK_RENDERER") : "GTK's default", demo);
   self_path = g_file_read_link ("/proc/self/exe", NULL);
   if (!only_round_trip)
     bench_cold (self_path ? self_path : argv[0], demo);

@@ -120,6 +120,100 @@ START_TEST (test_typed_feet_are_applied)
 }
 END_TEST
 
+/* The label showing a value in the results table, row ROW_TEXT (a substring of the quantity's
+ * name in column 0), column COL; NULL when there is none. */
+static GtkLabel *
+results_value_label (BwWindow *w, const char *row_text, int col)
+{
+  GtkGrid *g = GTK_GRID (bw_window_get_results_grid (w));
+
+  for (int r = 1; r < 200; r++)
+    {
+      GtkWidget *q = gtk_grid_get_child_at (g, 0, r), *v;
+      GtkWidget *ql = q ? g_object_get_data (G_OBJECT (q), "bw-text") : NULL;
+      if (ql == NULL || strstr (gtk_label_get_text (GTK_LABEL (ql)), row_text) == NULL)
+        continue;
+      v = gtk_grid_get_child_at (g, col, r);
+      if (v && !GTK_IS_LABEL (v))
+        v = g_object_get_data (G_OBJECT (v), "bw-text");
+      return v ? GTK_LABEL (v) : NULL;
+    }
+  return NULL;
+}
+
+/* An edit that keeps the table's shape updates its labels in place (the same widgets, the new
+ * values); another unit, or the every-case columns, build a new table. */
+START_TEST (test_results_update_in_place)
+{
+  BwWindow *w = demo_window ();
+  GtkLabel *before, *after, *other;
+  double v0, v1;
+
+  bw_window_select_unit (w, "north-sed");
+  bw_gui_test_pump (3);
+  before = results_value_label (w, "volume", 1);
+  ck_assert_ptr_nonnull (before);
+  v0 = g_ascii_strtod (gtk_label_get_text (before), NULL);
+  ck_assert_double_gt (v0, 0);
+  g_object_ref (before);
+  type_into (w, "length", "50 m");
+  after = results_value_label (w, "volume", 1);
+  ck_assert_ptr_eq (after, before);
+  /* The volume follows the length: 50/56 of what it was (derived; four significant figures). */
+  v1 = g_ascii_strtod (gtk_label_get_text (after), NULL);
+  ck_assert_double_eq_tol (v1 / v0, 50.0 / 56.0, 1e-3);
+  /* Undo puts the old value back in the same label. */
+  ck_assert (gtk_widget_activate_action (GTK_WIDGET (w), "win.undo", NULL));
+  bw_gui_test_pump (3);
+  ck_assert_ptr_eq (results_value_label (w, "volume", 1), before);
+  ck_assert_double_eq (g_ascii_strtod (gtk_label_get_text (before), NULL), v0);
+
+  /* Every load case: another shape, new labels (16 value columns). */
+  gtk_toggle_button_set_active (GTK_TOGGLE_BUTTON (bw_window_get_field_widget (w, "every-case")), TRUE);
+  bw_gui_test_pump (3);
+  other = results_value_label (w, "volume", 1);
+  ck_assert_ptr_nonnull (other);
+  ck_assert_ptr_ne (other, before);
+  ck_assert_ptr_nonnull (results_value_label (w, "volume", 16));
+  gtk_toggle_button_set_active (GTK_TOGGLE_BUTTON (bw_window_get_field_widget (w, "every-case")), FALSE);
+  /* Another unit: a table of its own. */
+  bw_window_select_unit (w, "north-rm");
+  bw_gui_test_pump (3);
+  other = results_value_label (w, "volume", 1);
+  ck_assert_ptr_nonnull (other);
+  ck_assert_ptr_ne (other, before);
+  g_object_unref (before);
+  close_window (w);
+}
+END_TEST
+
+/* The renderer choice: a user's GSK_RENDERER stands; without one, cairo exactly when the machine
+ * has no GPU render node. */
+START_TEST (test_renderer_choice)
+{
+  g_autofree char *old = g_strdup (g_getenv ("GSK_RENDERER"));
+  g_autoptr (GDir) dri = g_dir_open ("/dev/dri", 0, NULL);
+  gboolean gpu = FALSE;
+  const char *name;
+
+  while (dri && (name = g_dir_read_name (dri)))
+    gpu |= g_str_has_prefix (name, "renderD");
+  g_setenv ("GSK_RENDERER", "gl", TRUE);
+  ck_assert (!bw_application_choose_renderer ());
+  ck_assert_str_eq (g_getenv ("GSK_RENDERER"), "gl");
+  g_unsetenv ("GSK_RENDERER");
+  ck_assert (bw_application_choose_renderer () == !gpu);
+  if (gpu)
+    ck_assert_ptr_null (g_getenv ("GSK_RENDERER"));
+  else
+    ck_assert_str_eq (g_getenv ("GSK_RENDERER"), "cairo");
+  if (old)
+    g_setenv ("GSK_RENDERER", old, TRUE);
+  else
+    g_unsetenv ("GSK_RENDERER");
+}
+END_TEST
+
 START_TEST (test_wrong_kind_is_flagged_not_applied)
 {
   BwWindow *w = demo_window ();
@@ -670,6 +764,8 @@ window_suite (void)
   tcase_set_timeout (tc, 60);
   tcase_add_test (tc, test_window_shows_demo);
   tcase_add_test (tc, test_typed_feet_are_applied);
+  tcase_add_test (tc, test_results_update_in_place);
+  tcase_add_test (tc, test_renderer_choice);
   tcase_add_test (tc, test_wrong_kind_is_flagged_not_applied);
   tcase_add_test (tc, test_out_of_range_and_garbage_flagged);
   tcase_add_test (tc, test_unit_system_reformats);
