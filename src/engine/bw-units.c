@@ -737,6 +737,10 @@ bw_units_format (double value_si, BwQuantityKind kind, BwUnitSystem system)
     }
   else if (kind == BW_KIND_POWER && system == BW_UNIT_SYSTEM_SI && fabs (value_si) >= 1e4)
     unit = unit_by_ascii ("kW");
+  else if (kind == BW_KIND_FLOW && value_si != 0.0 && fabs (value_si) < 1e-4)
+    /* A chemical feed (a dosing pump's flow, below 0.36 m³/h) reads in L/h or gal/h, not as
+     * 2.558e-06 m³/s (common practice, no source). */
+    unit = unit_by_ascii (system == BW_UNIT_SYSTEM_SI ? "L/h" : "gph");
   else if (kind == BW_KIND_LENGTH && value_si != 0.0)
     {
       /* Particle sizes and plate spacings read better in µm, mm or inches. */

@@ -218,6 +218,10 @@ static const FormatCase format_cases[] = {
   { 0.0508, BW_KIND_LENGTH, BW_UNIT_SYSTEM_US, "2.000 in" },
   { 1e-3, BW_KIND_VELOCITY, BW_UNIT_SYSTEM_SI, "0.001000 m/s" },
   { 1.25, BW_KIND_ROTATIONAL_SPEED, BW_UNIT_SYSTEM_SI, "75.00 rpm" },
+  /* A chemical feed: GNU units gives 9.2088 L/hr and 2.4327076 gal/hr for 2.558e-6 m^3/s. */
+  { 2.558e-6, BW_KIND_FLOW, BW_UNIT_SYSTEM_SI, "9.209 L/h" },
+  { 2.558e-6, BW_KIND_FLOW, BW_UNIT_SYSTEM_US, "2.433 gph" },
+  { 1e-4, BW_KIND_FLOW, BW_UNIT_SYSTEM_SI, "0.0001000 m³/s" },
 };
 
 START_TEST (test_units_format)
