@@ -2403,6 +2403,55 @@ break_line (Ctx *c, double x0, double y0, double x1, double y1)
 
 static const char *const settler_names[] = { N_("plates"), N_("circular tubes"), N_("square tubes") };
 
+/* A tube settler's cells cut across their axis, in a box at the top left of the section (above
+ * the first tube, below the water line), enlarged by a round factor; skipped without room. */
+static void
+tube_inset (Ctx *c, const Unit *n, double x0, double ws)
+{
+  const double fs = c->ty.body, s = c->g.scale, ta = tan (n->angle);
+  const double bx = px (c, x0) + 0.4 * fs, by = py (c, ws) + 1.2 * fs, bh = 6.5 * fs;
+  /* three cells and their gaps (3.4 cell widths) in a box 11 text heights wide */
+  const double cell_max = (11.0 * fs - 1.6 * fs) / 3.4;
+  double bw, mag, d, cx0, cy, wx, wy;
+  g_autofree char *sp = NULL;
+  g_autofree char *lbl = NULL;
+  g_autofree char *cap = NULL;
+
+  if (n->shape == 0 || cell_max < 0.8 * fs || !(n->spacing > 0.0))
+    return;
+  mag = nice_below (cell_max / (s * n->spacing));
+  d = mag * s * n->spacing;
+  cap = g_strdup_printf (_("Tube cells, section A–A, ×%g"), mag);
+  /* wide enough for its caption, whatever the language */
+  bw = MAX (11.0 * fs, text_width (c, cap, c->ty.small) + 0.6 * fs);
+  /* the box's lower right corner, in world metres, must stay above the first tube */
+  wx = (bx + bw - c->g.origin_x) / s;
+  wy = (c->g.origin_y - (by + bh)) / s;
+  if (by + bh > c->h - c->ty.bottom_band || bx + bw > c->w - c->ty.pad || wy < wx * ta + 0.5 * fs / s)
+    return;
+  cairo_rectangle (c->cr, bx, by, bw, bh);
+  fill_stroke (c, c->st->paper, c->st->ink_muted, c->st->line_dimension);
+  text (c, bx + 0.3 * fs, by + 0.2 * fs, cap, c->ty.small, FALSE, 0.0, 0.0, c->st->ink);
+  cx0 = bx + (bw - 3.4 * d) / 2 + d / 2;
+  cy = by + 1.6 * fs + d / 2;
+  set_rgb (c, c->st->equipment);
+  set_line (c, 1.6 * c->st->line_detail);
+  for (int i = 0; i < 3; i++)
+    {
+      const double cx = cx0 + i * 1.2 * d;
+      cairo_new_sub_path (c->cr);
+      if (n->shape == 1)
+        cairo_arc (c->cr, cx, cy, d / 2, 0, 2 * G_PI);
+      else
+        cairo_rectangle (c->cr, cx - d / 2, cy - d / 2, d, d);
+    }
+  cairo_stroke (c->cr);
+  sp = fmt_len (c, n->spacing);
+  lbl = g_strdup_printf ("%s%s", n->shape == 1 ? "Ø " : "", sp);
+  dim_h (c, cx0 - d / 2, cx0 + d / 2, cy + d / 2, MIN (cy + d / 2 + 1.2 * fs, by + bh - 0.3 * fs),
+         lbl);
+}
+
 static void
 settler_section (Ctx *c, const Unit *n)
 {
@@ -2528,6 +2577,7 @@ settler_section (Ctx *c, const Unit *n)
     callout_fit (c, px (c, (np - 1) * pitch * 0.5 + 0.2 * L * ca), py (c, 0.2 * L * sa), tx,
                  py (c, 0.2 * L * sa) , _("settled solids slide down"), _("solids down"), 0.0, 0.5);
   }
+  tube_inset (c, n, x0, ws);
 }
 
 /* --- plate or tube settler in plan: the basin, its banks of modules and every row --- */
@@ -2962,7 +3012,9 @@ view_title (const Unit *n, BwSketchView view)
   if (n->type == BW_PROCESS_CIRCULAR_CLARIFIER)
     return view == BW_SKETCH_PLAN ? _("plan") : _("section on a diameter");
   if (n->type == BW_PROCESS_PLATE_SETTLER)
-    return view == BW_SKETCH_PLAN ? _("plan") : _("section across the plates");
+    return view == BW_SKETCH_PLAN ? _("plan")
+           : n->shape == 0        ? _("section across the plates")
+                                  : _("section across the tubes");
   if (n->type == BW_PROCESS_RECTANGULAR_BASIN || n->floc != NULL)
     return view == BW_SKETCH_PLAN ? _("plan") : _("longitudinal section");
   return view == BW_SKETCH_PLAN ? _("plan") : _("section on the shaft");

@@ -576,6 +576,82 @@ START_TEST (test_sketch_settler_plan_to_scale)
 }
 END_TEST
 
+/* Pixels that differ clearly between A and B in the page box X0..X1, Y0..Y1. */
+static gint64
+region_diff (cairo_surface_t *a, cairo_surface_t *b, int x0, int y0, int x1, int y1)
+{
+  gint64 n = 0;
+
+  for (int y = MAX (y0, 0); y < MIN (y1, cairo_image_surface_get_height (a)); y++)
+    for (int x = MAX (x0, 0); x < MIN (x1, cairo_image_surface_get_width (a)); x++)
+      {
+        int p[3], q[3];
+        pixel (a, x, y, p);
+        pixel (b, x, y, q);
+        n += abs (p[0] - q[0]) + abs (p[1] - q[1]) + abs (p[2] - q[2]) > 24;
+      }
+  return n;
+}
+
+/* A tube settler's section carries a detail of its cells (circles or squares) in the top left
+ * of the tank; a plate settler's does not, and where the canvas has no room the detail is left
+ * out rather than drawn over the tubes. The top-left third of the drawn world box holds it
+ * (derived from the layout: the box sits under the water line at the tank's left wall). */
+START_TEST (test_sketch_tube_cell_detail)
+{
+  static const int sz[][2] = { { 1600, 1000 }, { 400, 300 } };
+
+  for (guint k = 0; k < G_N_ELEMENTS (sz); k++)
+    {
+      cairo_surface_t *img[3];
+      BwSketchGeometry g;
+      int x0, y0, x1, y1;
+      gint64 plate_vs_circle, circle_vs_square;
+
+      for (int shape = 0; shape < 3; shape++)
+        {
+          g_autoptr (BwProcessUnit) u = bw_process_unit_copy (unit ("east-sed"));
+          g_autoptr (GError) error = NULL;
+          cairo_t *cr;
+          ck_assert (bw_process_unit_set (u, "shape", shape, NULL));
+          img[shape] = cairo_image_surface_create (CAIRO_FORMAT_RGB24, sz[k][0], sz[k][1]);
+          cr = cairo_create (img[shape]);
+          ck_assert_msg (bw_sketch_paint (demo, u, BW_SKETCH_SECTION, BW_UNIT_SYSTEM_SI, bw_style_light (),
+                                          cr, sz[k][0], sz[k][1], &error),
+                         "%s", error ? error->message : "");
+          cairo_destroy (cr);
+          cairo_surface_flush (img[shape]);
+          if (shape == 0)
+            ck_assert (bw_sketch_layout (demo, u, BW_SKETCH_SECTION, BW_UNIT_SYSTEM_SI, bw_style_light (),
+                                         sz[k][0], sz[k][1], &g, NULL));
+        }
+      x0 = (int) (g.origin_x + g.scale * g.world_x0);
+      y0 = (int) (g.origin_y - g.scale * g.world_y1);
+      x1 = x0 + (int) (g.scale * (g.world_x1 - g.world_x0) / 3);
+      y1 = y0 + (int) (g.scale * (g.world_y1 - g.world_y0) / 3);
+      plate_vs_circle = region_diff (img[0], img[1], x0, y0, x1, y1);
+      circle_vs_square = region_diff (img[1], img[2], x0, y0, x1, y1);
+      if (k == 0)
+        {
+          /* The detail's box (a few thousand pixels at this size) and its cells' shapes. */
+          ck_assert_msg (plate_vs_circle > 2000, "no cell detail for circular tubes (%" G_GINT64_FORMAT
+                         " pixels differ)", plate_vs_circle);
+          ck_assert_msg (circle_vs_square > 50, "circles and squares drawn alike (%" G_GINT64_FORMAT
+                         " pixels differ)", circle_vs_square);
+        }
+      else
+        {
+          /* No room at 400x300: nothing is added (the plates' and tubes' sections are the same
+           * there, the title above the box aside). */
+          ck_assert_int_eq (plate_vs_circle, 0);
+          ck_assert_int_eq (circle_vs_square, 0);
+        }
+      for (int shape = 0; shape < 3; shape++)
+        cairo_surface_destroy (img[shape]);
+    }
+}
+END_TEST
+
 START_TEST (test_sketch_light_and_dark)
 {
   const Case *k = &cases[_i];
@@ -1008,6 +1084,7 @@ bw_test_suite (void)
   tcase_add_loop_test (tc, test_sketch_drawn_to_scale, 0, N_SIZES);
   tcase_add_loop_test (tc, test_sketch_new_views_to_scale, 0, N_SIZES);
   tcase_add_loop_test (tc, test_sketch_settler_plan_to_scale, 0, N_SIZES);
+  tcase_add_test (tc, test_sketch_tube_cell_detail);
   tcase_add_loop_test (tc, test_sketch_light_and_dark, 0, N_CASES);
   tcase_add_loop_test (tc, test_sketch_layout_fits_world, 0, N_CASES * N_SIZES);
   tcase_add_loop_test (tc, test_sketch_variants, 0, G_N_ELEMENTS (variants));
