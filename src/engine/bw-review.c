@@ -98,6 +98,7 @@ bw_change_free (BwChange *c)
   g_free (c->what);
   g_free (c->old_text);
   g_free (c->new_text);
+  g_free (c->unit_id);
   g_free (c);
 }
 
@@ -122,6 +123,8 @@ add_change (GPtrArray *out, BwChangeKind kind, const char *where, const char *wh
   c->new_value = has_new ? new_v : 0;
   c->old_text = has_old ? fmt_si (old_v, unit_kind) : g_strdup ("—");
   c->new_text = has_new ? fmt_si (new_v, unit_kind) : g_strdup ("—");
+  c->numeric = TRUE;
+  c->quantity_kind = unit_kind;
   g_ptr_array_add (out, c);
 }
 
@@ -139,6 +142,19 @@ add_text_change (GPtrArray *out, BwChangeKind kind, const char *where, const cha
   c->old_text = g_strdup (old_t ? old_t : "—");
   c->new_text = g_strdup (new_t ? new_t : "—");
   g_ptr_array_add (out, c);
+}
+
+/* Marks the changes from index FROM on as belonging to unit ID of TYPE. */
+static void
+tag_unit (GPtrArray *out, guint from, const char *id, BwProcessType type)
+{
+  for (guint i = from; i < out->len; i++)
+    {
+      BwChange *c = g_ptr_array_index (out, i);
+      g_free (c->unit_id);
+      c->unit_id = g_strdup (id);
+      c->unit_type = type;
+    }
 }
 
 static void
@@ -267,16 +283,20 @@ bw_project_diff (const BwProject *a, const BwProject *b, const BwResults *ra, co
     for (guint i = 0; i < na; i++)
       {
         const BwProcessUnit *u = g_hash_table_lookup (ua, ka[i]), *v = g_hash_table_lookup (ub, ka[i]);
+        const guint from = out->len;
         if (v)
           diff_unit (out, u, v);
         else
           add_text_change (out, BW_CHANGE_INPUT, u->id, "unit", bw_process_type_label (u->type), NULL);
+        /* A unit whose type changed is tagged with its new type. */
+        tag_unit (out, from, u->id, v ? v->type : u->type);
       }
     for (guint i = 0; i < nb; i++)
       if (!g_hash_table_contains (ua, kb[i]))
         {
           const BwProcessUnit *v = g_hash_table_lookup (ub, kb[i]);
           add_text_change (out, BW_CHANGE_INPUT, v->id, "unit", NULL, bw_process_type_label (v->type));
+          tag_unit (out, out->len - 1, v->id, v->type);
         }
   }
 
@@ -287,9 +307,12 @@ bw_project_diff (const BwProject *a, const BwProject *b, const BwResults *ra, co
         const BwElementResult *x = g_ptr_array_index (ra->elements, e);
         const int f = find_element (rb, x->id);
         const BwElementResult *y;
+        const BwProcessUnit *eu;
+        const guint from = out->len;
         if (f < 0)
           continue;
         y = g_ptr_array_index (rb->elements, f);
+        eu = g_hash_table_lookup (ub, x->id);
         for (guint c = 0; c < ra->n_cases; c++)
           {
             const int d = find_case (rb, &ra->cases[c]);
@@ -311,6 +334,8 @@ bw_project_diff (const BwProject *a, const BwProject *b, const BwResults *ra, co
                               hb, vb, bw_quantity_info ((BwQuantity) q)->kind);
               }
           }
+        if (eu)
+          tag_unit (out, from, eu->id, eu->type);
       }
 
   /* Check outcomes, matched by criterion id and element id. */
@@ -325,9 +350,14 @@ bw_project_diff (const BwProject *a, const BwProject *b, const BwResults *ra, co
             const char *ey = y->element >= 0 ? ((BwElementResult *) g_ptr_array_index (rb->elements, y->element))->id : "";
             if (g_strcmp0 (x->criterion->id, y->criterion->id) == 0 && g_strcmp0 (ex, ey) == 0)
               {
+                const BwProcessUnit *eu = ex[0] ? g_hash_table_lookup (ub, ex) : NULL;
                 if (x->status != y->status)
-                  add_text_change (out, BW_CHANGE_CHECK, ex[0] ? ex : "project", x->criterion->id,
-                                   bw_check_status_name (x->status), bw_check_status_name (y->status));
+                  {
+                    add_text_change (out, BW_CHANGE_CHECK, ex[0] ? ex : "project", x->criterion->id,
+                                     bw_check_status_name (x->status), bw_check_status_name (y->status));
+                    if (eu)
+                      tag_unit (out, out->len - 1, eu->id, eu->type);
+                  }
                 break;
               }
           }

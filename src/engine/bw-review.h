@@ -54,6 +54,11 @@ typedef struct
   char *new_text;
   double old_value, new_value; /* SI; NAN-free: 0 when absent (see has_old/has_new) */
   gboolean has_old, has_new;
+  char *unit_id;     /* the process unit the change belongs to; NULL for project-level changes
+                      * (design basis, chemistry) */
+  BwProcessType unit_type; /* that unit's type; meaningful only when unit_id is set */
+  gboolean numeric;  /* old_value/new_value carry the change, in quantity_kind */
+  BwQuantityKind quantity_kind;
 } BwChange;
 
 void bw_change_free (BwChange *c);

@@ -45,6 +45,7 @@ struct _BwReviewView
   BwProject *other;
   BwResults *other_results; /* NULL when it does not evaluate */
   char *other_error;
+  gboolean results_open;    /* the compare view's results section is expanded (built) */
 };
 
 G_DEFINE_FINAL_TYPE (BwReviewView, bw_review_view, GTK_TYPE_BOX)
@@ -506,58 +507,18 @@ findings_rebuild (BwReviewView *self)
 
 /* --- the compare view --- */
 
-/* The quantity kind of a numeric change, to show it in the window's units; FALSE for a text. */
+/* The quantity kind of a numeric change, to show it in the window's units; FALSE for a text. The
+ * engine records the kind with each change; a plain number among the inputs (a count, pH) is shown
+ * as the engine wrote it. */
 static gboolean
-change_kind (const BwChange *c, const BwProject *a, const BwProject *b, BwQuantityKind *out)
+change_kind (const BwChange *c, BwQuantityKind *out)
 {
-  BwQuantity q;
-
-  if (c->kind == BW_CHANGE_CHECK)
+  if (c->kind == BW_CHANGE_CHECK || !c->numeric)
     return FALSE;
-  if (c->kind == BW_CHANGE_RESULT)
-    {
-      if (!bw_quantity_from_name (c->what, &q))
-        return FALSE;
-      *out = bw_quantity_info (q)->kind;
-      return TRUE;
-    }
-  if (strcmp (c->where, "design basis") == 0)
-    {
-      if (g_str_has_suffix (c->what, " flow"))
-        *out = BW_KIND_FLOW;
-      else if (g_str_has_suffix (c->what, " temperature"))
-        *out = BW_KIND_TEMPERATURE;
-      else if (strcmp (c->what, "turbidity") == 0)
-        *out = BW_KIND_TURBIDITY;
-      else if (strcmp (c->what, "alkalinity") == 0)
-        *out = BW_KIND_CONCENTRATION;
-      else
-        return FALSE;
-      return TRUE;
-    }
-  if (strcmp (c->where, "chemistry") == 0)
-    {
-      if (!g_str_has_suffix (c->what, " dose"))
-        return FALSE;
-      *out = BW_KIND_CONCENTRATION;
-      return TRUE;
-    }
-  {
-    const BwProcessUnit *u = bw_project_find_unit (b, c->where, NULL);
-    const BwParamSpec *specs;
-    guint n;
-    int i;
-    if (u == NULL)
-      u = bw_project_find_unit (a, c->where, NULL);
-    if (u == NULL)
-      return FALSE;
-    i = bw_param_index (u->type, c->what);
-    specs = bw_params_of (u->type, &n);
-    if (i < 0 || (guint) i >= n || specs[i].type != BW_PARAM_QUANTITY)
-      return FALSE;
-    *out = specs[i].kind;
-    return TRUE;
-  }
+  if (c->kind == BW_CHANGE_INPUT && c->quantity_kind == BW_KIND_NUMBER)
+    return FALSE;
+  *out = c->quantity_kind;
+  return TRUE;
 }
 
 static char *
@@ -587,18 +548,183 @@ group_row (const char *title)
   return row;
 }
 
+/* |relative change| of a numeric change, for ordering: the larger first; -1 for a text (after
+ * every number), and a change from or to zero counts as the largest. */
+static double
+change_size (const BwChange *c)
+{
+  if (!c->numeric || !c->has_old || !c->has_new)
+    return -1.0;
+  if (c->old_value == 0.0)
+    return c->new_value == 0.0 ? 0.0 : G_MAXDOUBLE;
+  return fabs (c->new_value - c->old_value) / fabs (c->old_value);
+}
+
+typedef struct
+{
+  const BwChange *c;
+  guint index; /* the engine's order, to keep the sort stable */
+} Ranked;
+
+/* Project-level changes first, then by unit in the engine's order of first mention; in a unit,
+ * the largest relative change first, texts last. */
+static int
+ranked_cmp (gconstpointer pa, gconstpointer pb, gpointer data)
+{
+  const Ranked *a = pa, *b = pb;
+  GHashTable *unit_rank = data;
+  const guint ua = a->c->unit_id ? GPOINTER_TO_UINT (g_hash_table_lookup (unit_rank, a->c->unit_id)) : 0;
+  const guint ub = b->c->unit_id ? GPOINTER_TO_UINT (g_hash_table_lookup (unit_rank, b->c->unit_id)) : 0;
+  double sa, sb;
+
+  if (ua != ub)
+    return ua < ub ? -1 : 1;
+  sa = change_size (a->c);
+  sb = change_size (b->c);
+  if (sa != sb)
+    return sa > sb ? -1 : 1;
+  return a->index < b->index ? -1 : a->index > b->index;
+}
+
+static GtkWidget *
+change_row (const BwChange *c, BwUnitSystem units)
+{
+  BwQuantityKind qk = BW_KIND_NUMBER;
+  const gboolean numeric = change_kind (c, &qk);
+  g_autofree char *ov = change_value (c, FALSE, numeric, qk, units);
+  g_autofree char *nv = change_value (c, TRUE, numeric, qk, units);
+  g_autofree char *acc = NULL;
+  GtkWidget *row = gtk_list_box_row_new ();
+  GtkBox *g = GTK_BOX (gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10));
+
+  gtk_widget_set_margin_start (GTK_WIDGET (g), 24);
+  gtk_widget_set_margin_end (GTK_WIDGET (g), 6);
+  cell (g, c->where, 30, FALSE);
+  cell (g, c->what, 0, FALSE);
+  cell (g, ov, 16, TRUE);
+  cell (g, "→", 1, FALSE);
+  cell (g, nv, 16, FALSE);
+  gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), GTK_WIDGET (g));
+  g_object_set_data (G_OBJECT (row), "bw-change-kind", GINT_TO_POINTER (c->kind + 1));
+  g_object_set_data_full (G_OBJECT (row), "bw-where", g_strdup (c->where), g_free);
+  g_object_set_data_full (G_OBJECT (row), "bw-what", g_strdup (c->what), g_free);
+  g_object_set_data_full (G_OBJECT (row), "bw-old", g_strdup (ov), g_free);
+  g_object_set_data_full (G_OBJECT (row), "bw-new", g_strdup (nv), g_free);
+  g_object_set_data_full (G_OBJECT (row), "bw-unit", g_strdup (c->unit_id), g_free);
+  acc = g_strdup_printf ("%s, %s: %s to %s", c->where, c->what, ov, nv);
+  gtk_accessible_update_property (GTK_ACCESSIBLE (row), GTK_ACCESSIBLE_PROPERTY_LABEL, acc, -1);
+  return row;
+}
+
+static void compare_rebuild (BwReviewView *self);
+
+static void
+results_expanded (GtkExpander *e, GParamSpec *pspec, gpointer data)
+{
+  BwReviewView *self = data;
+
+  (void) pspec;
+  if (gtk_expander_get_expanded (e) == self->results_open)
+    return;
+  self->results_open = gtk_expander_get_expanded (e);
+  /* The list is rebuilt, this expander with it (GObject holds it through its own notify). */
+  compare_rebuild (self);
+}
+
+/* One section: its heading with the count, then a heading per unit (or for the plant) and the
+ * unit's changes, largest first. The results section is an expander, collapsed until asked
+ * for; its rows are built only then. */
+static void
+compare_section (BwReviewView *self, GPtrArray *changes, BwChangeKind kind, GHashTable *unit_rank,
+                 BwUnitSystem units)
+{
+  g_autoptr (GArray) ranked = g_array_new (FALSE, FALSE, sizeof (Ranked));
+  g_autofree char *title = NULL;
+  const char *last_unit = "";
+  GtkWidget *head;
+
+  for (guint i = 0; i < changes->len; i++)
+    {
+      const BwChange *c = g_ptr_array_index (changes, i);
+      if (c->kind == kind)
+        g_array_append_val (ranked, ((Ranked) { c, i }));
+    }
+  switch (kind)
+    {
+    case BW_CHANGE_CHECK:
+      title = g_strdup_printf (ngettext ("%u check outcome changed", "%u check outcomes changed", ranked->len),
+                               ranked->len);
+      break;
+    case BW_CHANGE_INPUT:
+      title = g_strdup_printf (ngettext ("%u input changed", "%u inputs changed", ranked->len), ranked->len);
+      break;
+    default:
+      title = g_strdup_printf (ngettext ("%u result changed", "%u results changed", ranked->len), ranked->len);
+      break;
+    }
+  if (kind == BW_CHANGE_RESULT && ranked->len > 0)
+    {
+      GtkWidget *ex = gtk_expander_new (title);
+      head = gtk_list_box_row_new ();
+      gtk_expander_set_expanded (GTK_EXPANDER (ex), self->results_open);
+      gtk_widget_add_css_class (gtk_expander_get_label_widget (GTK_EXPANDER (ex)), "heading");
+      gtk_widget_set_margin_top (ex, 8);
+      gtk_widget_set_tooltip_text (ex, _("The computed results that moved with the inputs: shown on request"));
+      g_signal_connect (ex, "notify::expanded", G_CALLBACK (results_expanded), self);
+      gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (head), ex);
+      gtk_list_box_row_set_activatable (GTK_LIST_BOX_ROW (head), FALSE);
+      g_object_set_data (G_OBJECT (head), "bw-results-expander", ex);
+      gtk_list_box_append (self->compare_list, head);
+      if (!self->results_open)
+        return;
+    }
+  else
+    gtk_list_box_append (self->compare_list, group_row (title));
+  g_array_sort_with_data (ranked, ranked_cmp, unit_rank);
+  for (guint i = 0; i < ranked->len; i++)
+    {
+      const BwChange *c = g_array_index (ranked, Ranked, i).c;
+      if (g_strcmp0 (c->unit_id, last_unit) != 0)
+        {
+          guint n = 0;
+          g_autofree char *group = NULL;
+          GtkWidget *row, *l;
+          for (guint k = i; k < ranked->len && g_strcmp0 (g_array_index (ranked, Ranked, k).c->unit_id, c->unit_id) == 0; k++)
+            n++;
+          /* TRANSLATORS: a unit's id, its kind and its count of changes: "north-sed, rectangular basin: 3 changes" */
+          group = c->unit_id ? g_strdup_printf (ngettext ("%s, %s: %u change", "%s, %s: %u changes", n), c->unit_id,
+                                                bw_label_process_type (c->unit_type), n)
+                             : g_strdup_printf (ngettext ("The plant (design basis, chemistry): %u change",
+                                                          "The plant (design basis, chemistry): %u changes", n), n);
+          row = gtk_list_box_row_new ();
+          l = gtk_label_new (group);
+          gtk_label_set_xalign (GTK_LABEL (l), 0);
+          gtk_widget_set_margin_start (l, 12);
+          gtk_widget_set_margin_top (l, 4);
+          gtk_widget_add_css_class (l, "dim-label");
+          gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), l);
+          gtk_list_box_row_set_activatable (GTK_LIST_BOX_ROW (row), FALSE);
+          g_object_set_data_full (G_OBJECT (row), "bw-unit-heading", g_strdup (c->unit_id ? c->unit_id : ""), g_free);
+          gtk_list_box_append (self->compare_list, row);
+          last_unit = c->unit_id;
+        }
+      gtk_list_box_append (self->compare_list, change_row (c, units));
+    }
+}
+
 static void
 compare_rebuild (BwReviewView *self)
 {
-  static const char *const titles[] = { N_("Inputs changed"), N_("Results changed"), N_("Check outcomes changed") };
   const BwProject *mine = bw_window_get_project (self->window);
   const BwResults *my_r = bw_window_get_results (self->window);
   GArray *my_c = bw_window_get_checks (self->window);
   const BwCriteriaSet *set = bw_window_get_criteria (self->window);
   const gboolean swap = gtk_toggle_button_get_active (self->swap_toggle);
   const BwUnitSystem units = bw_window_get_unit_system (self->window);
+  static const BwChangeKind order[] = { BW_CHANGE_CHECK, BW_CHANGE_INPUT, BW_CHANGE_RESULT };
   g_autoptr (GArray) other_c = NULL;
   g_autoptr (GPtrArray) changes = NULL;
+  g_autoptr (GHashTable) unit_rank = NULL;
   const BwProject *a, *b;
   guint counts[3] = { 0 };
   g_autofree char *base = NULL;
@@ -620,8 +746,15 @@ compare_rebuild (BwReviewView *self)
   b = swap ? self->other : mine;
   changes = swap ? bw_project_diff (a, b, my_r, self->other_results, my_c, other_c)
                  : bw_project_diff (a, b, self->other_results, my_r, other_c, my_c);
+  /* Units in the order the engine first names them (the plant's order), the plant first. */
+  unit_rank = g_hash_table_new (g_str_hash, g_str_equal);
   for (guint i = 0; i < changes->len; i++)
-    counts[((BwChange *) g_ptr_array_index (changes, i))->kind]++;
+    {
+      const BwChange *c = g_ptr_array_index (changes, i);
+      counts[c->kind]++;
+      if (c->unit_id && !g_hash_table_contains (unit_rank, c->unit_id))
+        g_hash_table_insert (unit_rank, c->unit_id, GUINT_TO_POINTER (g_hash_table_size (unit_rank) + 1));
+    }
   base = g_path_get_basename (self->other_path);
   msg = g_strdup_printf (swap ? _("Old: this window's project; new: %s. %u inputs, %u results and %u check "
                                   "outcomes changed%s.")
@@ -631,53 +764,8 @@ compare_rebuild (BwReviewView *self)
                          self->other_results == NULL ? _(" (the other revision does not evaluate: inputs only)")
                          : set ? _(", both checked against this window's criteria set") : "");
   set_note (self->compare_label, msg, FALSE);
-  for (int k = 0; k < 3; k++)
-    {
-      g_autofree char *title = g_strdup_printf ("%s (%u)", _(titles[k]), counts[k]);
-      gtk_list_box_append (self->compare_list, group_row (title));
-      if (counts[k] == 0)
-        {
-          GtkWidget *none = gtk_label_new (_("None."));
-          gtk_label_set_xalign (GTK_LABEL (none), 0);
-          gtk_widget_set_margin_start (none, 12);
-          gtk_widget_add_css_class (none, "dim-label");
-          gtk_list_box_append (self->compare_list, none);
-        }
-      for (guint i = 0; i < changes->len; i++)
-        {
-          const BwChange *c = g_ptr_array_index (changes, i);
-          BwQuantityKind qk = BW_KIND_NUMBER;
-          gboolean numeric;
-          g_autofree char *ov = NULL;
-          g_autofree char *nv = NULL;
-          g_autofree char *acc = NULL;
-          GtkWidget *row;
-          GtkBox *g;
-          if ((int) c->kind != k)
-            continue;
-          numeric = change_kind (c, a, b, &qk);
-          ov = change_value (c, FALSE, numeric, qk, units);
-          nv = change_value (c, TRUE, numeric, qk, units);
-          row = gtk_list_box_row_new ();
-          g = GTK_BOX (gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 10));
-          gtk_widget_set_margin_start (GTK_WIDGET (g), 12);
-          gtk_widget_set_margin_end (GTK_WIDGET (g), 6);
-          cell (g, c->where, 30, FALSE);
-          cell (g, c->what, 0, FALSE);
-          cell (g, ov, 16, TRUE);
-          cell (g, "→", 1, FALSE);
-          cell (g, nv, 16, FALSE);
-          gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), GTK_WIDGET (g));
-          g_object_set_data (G_OBJECT (row), "bw-change-kind", GINT_TO_POINTER (c->kind + 1));
-          g_object_set_data_full (G_OBJECT (row), "bw-where", g_strdup (c->where), g_free);
-          g_object_set_data_full (G_OBJECT (row), "bw-what", g_strdup (c->what), g_free);
-          g_object_set_data_full (G_OBJECT (row), "bw-old", g_strdup (ov), g_free);
-          g_object_set_data_full (G_OBJECT (row), "bw-new", g_strdup (nv), g_free);
-          acc = g_strdup_printf ("%s, %s: %s to %s", c->where, c->what, ov, nv);
-          gtk_accessible_update_property (GTK_ACCESSIBLE (row), GTK_ACCESSIBLE_PROPERTY_LABEL, acc, -1);
-          gtk_list_box_append (self->compare_list, row);
-        }
-    }
+  for (guint k = 0; k < G_N_ELEMENTS (order); k++)
+    compare_section (self, changes, order[k], unit_rank, units);
 }
 
 gboolean
@@ -692,6 +780,7 @@ bw_review_view_compare_with (BwReviewView *self, const char *path, GError **erro
   g_clear_pointer (&self->other_error, g_free);
   g_free (self->other_path);
   self->other_path = g_strdup (path);
+  self->results_open = FALSE; /* another revision: its results start collapsed */
   p = bw_project_load (path, &local);
   if (p == NULL)
     {

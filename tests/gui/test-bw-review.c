@@ -292,6 +292,166 @@ START_TEST (test_bad_csv_names_the_line)
 }
 END_TEST
 
+static double
+rel_size (const BwChange *c)
+{
+  if (!c->numeric || !c->has_old || !c->has_new)
+    return -1.0;
+  if (c->old_value == 0.0)
+    return c->new_value == 0.0 ? 0.0 : G_MAXDOUBLE;
+  return fabs (c->new_value - c->old_value) / fabs (c->old_value);
+}
+
+/* A reviewer's order: check outcomes first, then inputs, each under a heading per unit, largest
+ * relative change first; the results collapsed, their rows built only when expanded. */
+START_TEST (test_compare_reviewer_order)
+{
+  BwWindow *w = open_window ("marrowby-demo.bwproj");
+  BwReviewView *v = review_of (w);
+  g_autofree char *demo = example ("marrowby-demo.bwproj");
+  g_autofree char *other = g_build_filename (tmpdir, "revision-b.bwproj", NULL);
+  g_autoptr (BwProject) op = bw_project_load (demo, NULL);
+  g_autoptr (BwResults) orr = NULL;
+  g_autoptr (GPtrArray) want = NULL;
+  g_autoptr (GArray) oc = NULL;
+  g_autoptr (GPtrArray) sed = g_ptr_array_new ();
+  BwProcessUnit *ns;
+
+  /* The other revision: the north basin a little shorter (56 -> 50 m), much wider (2.8 -> 5.0 m)
+   * and deeper than the 5 m limit (4.0 -> 5.5 m, a check outcome that changes). Relative sizes
+   * 0.107, 0.786, 0.375 (derived): listed width, depth, length, not in the file's order. */
+  ck_assert_ptr_nonnull (op);
+  ns = bw_project_find_unit (op, "north-sed", NULL);
+  ck_assert (bw_process_unit_set (ns, "length", 50.0, NULL));
+  ck_assert (bw_process_unit_set (ns, "width", 5.0, NULL));
+  ck_assert (bw_process_unit_set (ns, "side-water-depth", 5.5, NULL));
+  ck_assert (bw_project_save (op, other, NULL));
+  GtkWidget *list, *expander = NULL;
+  guint n_results = 0, n_checks = 0, rows_results = 0, i_sed = 0;
+  int pos = 0, last_check = -1, first_input = -1, first_result = -1;
+  const char *heading = NULL;
+  g_autofree char *want_title = NULL;
+  g_autofree char *busiest = NULL;
+
+  ck_assert (bw_review_view_compare_with (v, other, NULL));
+  bw_review_view_show (v, "compare");
+  bw_review_view_refresh (v);
+  orr = bw_project_evaluate (op, NULL);
+  oc = bw_check_results (orr, bw_window_get_criteria (w));
+  want = bw_project_diff (op, bw_window_get_project (w), orr, bw_window_get_results (w), oc,
+                          bw_window_get_checks (w));
+  /* The unit with the most changed inputs is the one whose order is checked. */
+  {
+    g_autoptr (GHashTable) per = g_hash_table_new (g_str_hash, g_str_equal);
+    guint most = 0;
+    for (guint i = 0; i < want->len; i++)
+      {
+        BwChange *c = g_ptr_array_index (want, i);
+        n_results += c->kind == BW_CHANGE_RESULT;
+        n_checks += c->kind == BW_CHANGE_CHECK;
+        if (c->kind == BW_CHANGE_INPUT && c->unit_id)
+          {
+            guint n = GPOINTER_TO_UINT (g_hash_table_lookup (per, c->unit_id)) + 1;
+            g_hash_table_insert (per, c->unit_id, GUINT_TO_POINTER (n));
+            if (n > most)
+              {
+                most = n;
+                g_free (busiest);
+                busiest = g_strdup (c->unit_id);
+              }
+          }
+      }
+    for (guint i = 0; i < want->len; i++)
+      {
+        BwChange *c = g_ptr_array_index (want, i);
+        if (c->kind == BW_CHANGE_INPUT && g_strcmp0 (c->unit_id, busiest) == 0)
+          g_ptr_array_add (sed, c);
+      }
+  }
+  ck_assert_uint_gt (n_checks, 0);
+  ck_assert_uint_gt (n_results, 0);
+  ck_assert_str_eq (busiest, "north-sed");
+  ck_assert_uint_eq (sed->len, 3);
+  list = bw_review_view_get_compare_list (v);
+  for (GtkWidget *r = gtk_widget_get_first_child (list); r; r = gtk_widget_get_next_sibling (r), pos++)
+    {
+      const int k = GPOINTER_TO_INT (g_object_get_data (G_OBJECT (r), "bw-change-kind")) - 1;
+      if (g_object_get_data (G_OBJECT (r), "bw-unit-heading"))
+        heading = g_object_get_data (G_OBJECT (r), "bw-unit-heading");
+      if (g_object_get_data (G_OBJECT (r), "bw-results-expander"))
+        expander = g_object_get_data (G_OBJECT (r), "bw-results-expander");
+      if (k == BW_CHANGE_CHECK)
+        last_check = pos;
+      if (k == BW_CHANGE_INPUT && first_input < 0)
+        first_input = pos;
+      if (k == BW_CHANGE_RESULT && first_result < 0)
+        first_result = pos;
+      if (k >= 0)
+        {
+          /* every change sits under the heading of its own unit ("" for the plant) */
+          const char *u = g_object_get_data (G_OBJECT (r), "bw-unit");
+          ck_assert_ptr_nonnull (heading);
+          ck_assert_str_eq (heading, u ? u : "");
+        }
+      if (k == BW_CHANGE_INPUT && g_strcmp0 (g_object_get_data (G_OBJECT (r), "bw-unit"), busiest) == 0)
+        {
+          /* that unit's inputs in the order of their relative change, largest first */
+          const BwChange *c = g_ptr_array_index (sed, i_sed);
+          if (i_sed > 0)
+            ck_assert (rel_size (g_ptr_array_index (sed, i_sed - 1)) >= 0 || rel_size (c) < 0);
+          i_sed++;
+        }
+    }
+  ck_assert_int_ge (last_check, 0);
+  ck_assert_int_gt (first_input, last_check);
+  ck_assert_int_eq (first_result, -1); /* collapsed: no result row built */
+  ck_assert_uint_eq (i_sed, sed->len);
+  ck_assert_ptr_nonnull (expander);
+  want_title = g_strdup_printf ("%u results changed", n_results);
+  ck_assert_str_eq (gtk_expander_get_label (GTK_EXPANDER (expander)), want_title);
+  ck_assert (!gtk_expander_get_expanded (GTK_EXPANDER (expander)));
+
+  /* That unit's rows as listed, against the engine's changes sorted by relative change. */
+  {
+    g_autoptr (GPtrArray) sorted = g_ptr_array_copy (sed, NULL, NULL);
+    guint j = 0;
+    for (guint a = 1; a < sorted->len; a++) /* stable insertion sort, largest first */
+      for (guint b = a; b > 0 && rel_size (g_ptr_array_index (sorted, b)) > rel_size (g_ptr_array_index (sorted, b - 1)); b--)
+        {
+          gpointer t = sorted->pdata[b];
+          sorted->pdata[b] = sorted->pdata[b - 1];
+          sorted->pdata[b - 1] = t;
+        }
+    for (GtkWidget *r = gtk_widget_get_first_child (list); r; r = gtk_widget_get_next_sibling (r))
+      if (GPOINTER_TO_INT (g_object_get_data (G_OBJECT (r), "bw-change-kind")) == BW_CHANGE_INPUT + 1
+          && g_strcmp0 (g_object_get_data (G_OBJECT (r), "bw-unit"), busiest) == 0)
+        {
+          const BwChange *c = g_ptr_array_index (sorted, j++);
+          ck_assert_str_eq (g_object_get_data (G_OBJECT (r), "bw-what"), c->what);
+          if (j == 1) /* the widening, the largest change (its label names the width) */
+            ck_assert_msg (strstr (c->what, "width") != NULL, "first: %s", c->what);
+        }
+    ck_assert_uint_eq (j, sorted->len);
+  }
+
+  /* Expanded, the result rows are built: every one of them, after the inputs. */
+  gtk_expander_set_expanded (GTK_EXPANDER (expander), TRUE);
+  bw_gui_test_pump (3);
+  pos = 0;
+  first_result = -1;
+  for (GtkWidget *r = gtk_widget_get_first_child (list); r; r = gtk_widget_get_next_sibling (r), pos++)
+    if (GPOINTER_TO_INT (g_object_get_data (G_OBJECT (r), "bw-change-kind")) == BW_CHANGE_RESULT + 1)
+      {
+        rows_results++;
+        if (first_result < 0)
+          first_result = pos;
+      }
+  ck_assert_uint_eq (rows_results, n_results);
+  ck_assert_int_gt (first_result, first_input);
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_compare_lists_input_changes)
 {
   BwWindow *w = open_window ("marrowby-demo.bwproj");
@@ -604,6 +764,7 @@ review_suite (void)
   tcase_add_test (tc, test_tolerance_flagged_and_applied);
   tcase_add_test (tc, test_bad_csv_names_the_line);
   tcase_add_test (tc, test_compare_lists_input_changes);
+  tcase_add_test (tc, test_compare_reviewer_order);
   tcase_add_test (tc, test_report_preview_and_export);
   tcase_add_test (tc, test_report_letter_and_preparer);
   tcase_add_test (tc, test_findings_report_export);
