@@ -10,6 +10,7 @@
 #include <math.h>
 #include <string.h>
 
+#include "draw/bw-labels.h"
 #include "engine/bw-axis.h"
 #include "engine/bw-error.h"
 #include "engine/bw-mixing.h"
@@ -174,7 +175,7 @@ add_limit_rules (BwChart *ch, GArray *checks, int ei, BwQuantity q, const BwUnit
 static char *
 case_flow_label (const BwResults *r, int c)
 {
-  return g_strdup (bw_flow_kind_label (r->cases[c].flow));
+  return g_strdup (bw_label_flow_kind (r->cases[c].flow));
 }
 
 /* --- (a) flocculator taper --- */
@@ -522,7 +523,7 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
       if (c < 0 || !value_at (e, c, BW_Q_OVERFLOW_RATE, &ov) || !value_at (e, c, BW_Q_REMOVAL, &rem))
         continue;
       bw_chart_series_add (pts, to_display (uv, ov), 100 * rem);
-      bw_chart_add_note (ch, to_display (uv, ov), 100 * rem, bw_flow_kind_label ((BwFlowKind) f))
+      bw_chart_add_note (ch, to_display (uv, ov), 100 * rem, bw_label_flow_kind ((BwFlowKind) f))
         ->ring = FALSE;
     }
   {

@@ -12,6 +12,7 @@
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
+#include "draw/bw-labels.h"
 #include "engine/bw-evaluate.h"
 #include <pango/pangocairo.h>
 #include <string.h>
@@ -2923,7 +2924,7 @@ schematic (Ctx *c, const Unit *n, const BwProcessUnit *named, const BwResults *r
       g_autoptr (GPtrArray) lines = block_lines (c, r, u, k);
       double h = 0.6 * fs;
       h += text_box (c, 0, 0, inner, u->name && *u->name ? u->name : u->id, fs, TRUE, 2, none);
-      h += text_box (c, 0, 0, inner, bw_process_type_label (u->type), 0.85 * fs, FALSE, 2, none);
+      h += text_box (c, 0, 0, inner, bw_label_process_type (u->type), 0.85 * fs, FALSE, 2, none);
       if (u->n_parallel > 1)
         h += text_box (c, 0, 0, inner, "× 2", 0.85 * fs, FALSE, 1, none);
       h += 0.4 * fs;
@@ -2949,7 +2950,7 @@ schematic (Ctx *c, const Unit *n, const BwProcessUnit *named, const BwResults *r
       set_line (c, i == highlight ? 2.2 * st->line_outline : st->line_outline);
       cairo_stroke (c->cr);
       y += text_box (c, tx, y, inner, u->name && *u->name ? u->name : u->id, fs, TRUE, 2, st->ink);
-      y += text_box (c, tx, y, inner, bw_process_type_label (u->type), 0.85 * fs, FALSE, 2,
+      y += text_box (c, tx, y, inner, bw_label_process_type (u->type), 0.85 * fs, FALSE, 2,
                      st->ink_muted);
       if (u->n_parallel > 1)
         {
@@ -3052,12 +3053,13 @@ sheet (Ctx *c, const BwProject *p, const BwProcessUnit *u, const Unit *n, BwSket
                                view_title (n, view));
       g_autofree char *wt = n->floc != NULL ? fmt_len (c, n->width) : NULL;
       if (bw_process_type_is_stage (u->type))
-        sub = g_strdup_printf ("%s · %s %u of %s, %s wide", u->id, bw_process_type_label (u->type),
+        /* TRANSLATORS: "east-floc-2 · paddle stage 2 of East flocculator, 4.2 m wide" */
+        sub = g_strdup_printf (_("%s · %s %u of %s, %s wide"), u->id, bw_label_process_type (u->type),
                                n->first + 1, n->floc->name && *n->floc->name ? n->floc->name
                                                                             : n->floc->id,
                                wt);
       else
-        sub = g_strdup_printf ("%s · %s%s", u->id, bw_process_type_label (u->type),
+        sub = g_strdup_printf ("%s · %s%s", u->id, bw_label_process_type (u->type),
                                units ? units : "");
     }
   right = g_strdup_printf ("%s%s%s", p->name ? p->name : "", p->revision ? _(" · rev. ") : "",

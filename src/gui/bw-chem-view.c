@@ -13,6 +13,7 @@
 #include <string.h>
 
 #include "draw/bw-chart-jartest.h"
+#include "draw/bw-labels.h"
 #include "draw/bw-charts.h"
 #include "draw/bw-style.h"
 #include "engine/bw-chemistry.h"
@@ -720,7 +721,7 @@ results_rebuild (BwChemView *self)
         continue;
       for (guint k = 0; k < 3; k++)
         ok = ok && dosing (self, &co, doses[k], q, &d[k]);
-      cell (g, 0, row, bw_flow_kind_label ((BwFlowKind) fk), FALSE);
+      cell (g, 0, row, bw_label_flow_kind ((BwFlowKind) fk), FALSE);
       cell_q (g, 1, row, q, BW_KIND_FLOW, self);
       if (ok)
         {
