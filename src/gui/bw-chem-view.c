@@ -20,6 +20,7 @@
 #include "engine/bw-edit.h"
 #include "engine/bw-error.h"
 #include "engine/bw-water.h"
+#include "gui/bw-locale.h"
 #include "io/bw-jartest-csv.h"
 
 /* PACl strength put in when the coagulant is switched to PACl and none was set: 10.5 % Al2O3 and
@@ -577,7 +578,8 @@ cell (GtkGrid *grid, int col, int row, const char *text, gboolean head)
 static void
 cell_q (GtkGrid *grid, int col, int row, double si, BwQuantityKind kind, BwChemView *self)
 {
-  g_autofree char *t = fmt (si, kind, self);
+  g_autofree char *c = fmt (si, kind, self);
+  g_autofree char *t = bw_locale_localize_number (c); /* read, not typed: the locale's comma */
   cell (grid, col, row, t, FALSE);
 }
 
@@ -600,7 +602,8 @@ static void
 cell_flow_in (GtkGrid *grid, int col, int row, double si, const char *si_unit,
               const char *us_unit, BwChemView *self)
 {
-  g_autofree char *t = fmt_flow_in (si, si_unit, us_unit, self);
+  g_autofree char *c = fmt_flow_in (si, si_unit, us_unit, self);
+  g_autofree char *t = bw_locale_localize_number (c);
   cell (grid, col, row, t, FALSE);
 }
 
@@ -958,7 +961,10 @@ record_rebuild (BwChemView *self)
         else
           g_string_append_printf (t, _("\nNo jar has |ζ| within %s."), lim);
       }
-    gtk_label_set_text (self->fit_label, t->str);
+    {
+      g_autofree char *shown = bw_locale_localize_number (t->str);
+      gtk_label_set_text (self->fit_label, shown);
+    }
   }
   gtk_widget_set_sensitive (GTK_WIDGET (self->use_button), TRUE);
   gtk_widget_queue_draw (GTK_WIDGET (self->chart_area));

@@ -12,6 +12,7 @@
 
 #include "bw-gui-test.h"
 #include "engine/bw-project.h"
+#include "gui/bw-chem-view.h"
 #include "gui/bw-locale.h"
 
 static BwApplication *app;
@@ -211,6 +212,21 @@ START_TEST (test_numbers_use_the_decimal_comma)
   g_signal_emit_by_name (e, "activate");
   bw_gui_test_pump (5);
   ck_assert_double_eq_tol (bw_process_unit_get (u, "length"), 2.25, 1e-12);
+
+  /* The Chemistry page's tables read with the comma too: the demo's minimum dose, 15 mg/L, is
+   * "15,00 mg/L" there (derived), with the flow kind in Spanish. */
+  {
+    GtkStack *stack = find_stack (GTK_WIDGET (w));
+    GtkWidget *chem = gtk_stack_get_child_by_name (stack, "chemistry");
+    g_autofree char *chem_text = NULL;
+    ck_assert (BW_IS_CHEM_VIEW (chem));
+    gtk_stack_set_visible_child (stack, chem);
+    bw_gui_test_pump (5);
+    chem_text = bw_chem_view_dup_results_text (BW_CHEM_VIEW (chem));
+    ck_assert_msg (strstr (chem_text, "15,00 mg/L") != NULL, "%s", chem_text);
+    ck_assert_msg (strstr (chem_text, "15.00 mg/L") == NULL, "%s", chem_text);
+    ck_assert_msg (strstr (chem_text, "peak hour") == NULL, "%s", chem_text);
+  }
   close_window (w);
 }
 END_TEST
