@@ -781,11 +781,10 @@ criteria_refresh (BwWindow *self)
       g_autofree char *note = g_strdup_printf (_("%s%s%s%s Limits are only as good as their "
                                                  "citation: check the edition in force."),
                                                count, d ? ": " : "", d ? d : "", stop ? "" : ".");
-      if (g_strcmp0 (gtk_label_get_text (self->criteria_note), note) != 0)
-        gtk_label_set_text (self->criteria_note, note);
+      _bw_label_update (self->criteria_note, note);
     }
-  else if (g_strcmp0 (gtk_label_get_text (self->criteria_note), self->criteria_error ? self->criteria_error : "") != 0)
-    gtk_label_set_text (self->criteria_note, self->criteria_error ? self->criteria_error : "");
+  else
+    _bw_label_update (self->criteria_note, self->criteria_error ? self->criteria_error : "");
 }
 
 void

@@ -138,4 +138,7 @@ gboolean _bw_window_close_request (GtkWindow *window);
 void _bw_window_forget_autosave (BwWindow *self);
 void _bw_window_files_class_init (GtkWidgetClass *widget_class);
 
+/* Sets TEXT on LABEL only when it differs, so an unchanged label keeps its layout. */
+void _bw_label_update (GtkLabel *label, const char *text);
+
 G_END_DECLS

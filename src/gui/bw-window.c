@@ -342,8 +342,8 @@ nav_row (const char *id, const char *train_id, const char *name, const char *kin
 
 /* Sets TEXT on LABEL only when it differs: an unchanged label keeps its layout, so a refresh
  * after an edit re-measures only what changed. */
-static void
-label_update (GtkLabel *label, const char *text)
+void
+_bw_label_update (GtkLabel *label, const char *text)
 {
   if (g_strcmp0 (gtk_label_get_text (label), text) != 0)
     gtk_label_set_text (label, text);
@@ -369,7 +369,7 @@ set_dot (BwWindow *self, GtkWidget *row)
       gtk_widget_remove_css_class (dot, classes[i]);
   if (want && !gtk_widget_has_css_class (dot, want))
     gtk_widget_add_css_class (dot, want);
-  label_update (GTK_LABEL (dot), s < 0 ? "" : "●");
+  _bw_label_update (GTK_LABEL (dot), s < 0 ? "" : "●");
   if (tip && g_strcmp0 (gtk_widget_get_tooltip_text (dot), tip) != 0)
     gtk_widget_set_tooltip_text (dot, tip);
 }
@@ -387,7 +387,7 @@ nav_refresh (BwWindow *self)
       if (!GTK_IS_LIST_BOX_ROW (row))
         continue;
       if (id && (u = locate (self->project, id, &t, &parent, &idx)))
-        label_update (g_object_get_data (G_OBJECT (row), "bw-name"), u->name ? u->name : u->id);
+        _bw_label_update (g_object_get_data (G_OBJECT (row), "bw-name"), u->name ? u->name : u->id);
       set_dot (self, row);
     }
 }
@@ -689,7 +689,7 @@ pass_label (ResultsPass *p, const char *text, GtkLabel **existing)
     {
       g_assert (p->next < p->self->results_labels->len);
       l = g_ptr_array_index (p->self->results_labels, p->next++);
-      label_update (l, text);
+      _bw_label_update (l, text);
       *existing = l;
       return NULL;
     }
@@ -853,7 +853,7 @@ results_rebuild (BwWindow *self)
   el = g_ptr_array_index (self->results->elements, e);
   {
     g_autofree char *h = g_strdup_printf (_("Results: %s"), el->label);
-    label_update (self->results_heading, h);
+    _bw_label_update (self->results_heading, h);
     tooltip_update (GTK_WIDGET (self->results_heading),
                     _("Every enabled load case, from the engine. A value that governs a "
                       "criterion is underlined; hover a criterion for its governing case."));
