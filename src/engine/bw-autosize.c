@@ -11,6 +11,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "engine/bw-water.h"
 
 typedef struct
@@ -281,7 +282,7 @@ grid_search (const Ctx *x, BwProcessUnit *work, const Dim *dims, guint n_dims, g
           done++;
           if (progress && (done & 0x3fff) == 0 && !progress ((double) done / total, user_data))
             {
-              g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "autosize: cancelled");
+              g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("autosize: cancelled"));
               return FALSE;
             }
           /* advance */
@@ -451,14 +452,14 @@ search_flocculator (Ctx *x, BwProcessUnit *work, BwAutosizeProgress progress, gp
       if (n_best[s] == 0)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "%s: no setting of stage %u passes the stage criteria in every load case",
+                       BW_ ("%s: no setting of stage %u passes the stage criteria in every load case"),
                        work->id, s + 1);
           g_string_free (desc, TRUE);
           return FALSE;
         }
       if (progress && !progress ((double) (s + 1) / (ns + 1), user_data))
         {
-          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "autosize: cancelled");
+          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("autosize: cancelled"));
           g_string_free (desc, TRUE);
           return FALSE;
         }
@@ -528,8 +529,8 @@ bw_autosize (const BwProject *p, const char *unit_id, const BwCriteriaSet *set, 
   if (orig == NULL || bw_process_type_is_stage (orig->type))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' is not a unit of the project%s", unit_id,
-                   orig ? " (a stage is sized with its flocculator)" : "");
+                   BW_ ("unit: '%s' is not a unit of the project%s"), unit_id,
+                   orig ? BW_ (" (a stage is sized with its flocculator)") : "");
       return FALSE;
     }
   x.p = p;
@@ -602,8 +603,8 @@ bw_autosize (const BwProject *p, const char *unit_id, const BwCriteriaSet *set, 
       ok = search_flocculator (&x, work, progress, user_data, out, error);
       break;
     default:
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "unit: cannot size a %s",
-                   bw_process_type_label (orig->type));
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("unit: cannot size a %s"),
+                   BW_ (bw_process_type_label (orig->type)));
       break;
     }
   if (desc)
@@ -611,7 +612,7 @@ bw_autosize (const BwProject *p, const char *unit_id, const BwCriteriaSet *set, 
   if (ok && out->n_best == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "%s: no design in the searched space (%s) passes every required criterion",
+                   BW_ ("%s: no design in the searched space (%s) passes every required criterion"),
                    unit_id, out->searched ? out->searched : "");
       ok = FALSE;
     }
@@ -625,7 +626,7 @@ bw_autosize_apply (BwProject *p, const char *unit_id, const BwCandidate *c, GErr
 
   if (u == NULL)
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "unit: no '%s' in the project", unit_id);
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("unit: no '%s' in the project"), unit_id);
       return FALSE;
     }
   u->n_parallel = c->n_parallel;

@@ -18,6 +18,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Slack when snapping a value to a whole number of steps or decades: far below any tick
  * spacing one would draw, far above the rounding of a double. */
@@ -48,7 +49,7 @@ check_target (guint target, GError **error)
   if (target < 2 || target > BW_AXIS_MAX_TARGET)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "target ticks: must be 2 to %d (got %u)", BW_AXIS_MAX_TARGET, target);
+                   BW_ ("target ticks: must be 2 to %d (got %u)"), BW_AXIS_MAX_TARGET, target);
       return FALSE;
     }
   return TRUE;
@@ -210,7 +211,7 @@ linear_axis (double lo, double hi, guint target, gboolean widen, BwAxis *out)
 static gboolean
 check_pair (double a, double b, GError **error)
 {
-  if (!bw_check_finite (a, "axis minimum", error) || !bw_check_finite (b, "axis maximum", error))
+  if (!bw_check_finite (a, BW_ ("axis minimum"), error) || !bw_check_finite (b, BW_ ("axis maximum"), error))
     return FALSE;
   return TRUE;
 }
@@ -247,13 +248,13 @@ bw_axis_linear (double data_min, double data_max, guint target_ticks, gboolean i
   if (!isfinite (hi - lo))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "axis range: too wide for a linear axis (%g to %g)", lo, hi);
+                   BW_ ("axis range: too wide for a linear axis (%g to %g)"), lo, hi);
       return FALSE;
     }
   if (!linear_axis (lo, hi, target_ticks, TRUE, out))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "axis range: no tick step fits %g to %g", lo, hi);
+                   BW_ ("axis range: no tick step fits %g to %g"), lo, hi);
       return FALSE;
     }
   return TRUE;
@@ -321,7 +322,7 @@ check_log_pair (double a, double b, GError **error)
   if (a <= 0 || b <= 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "axis range: a log axis needs values above zero (got %g to %g)", a, b);
+                   BW_ ("axis range: a log axis needs values above zero (got %g to %g)"), a, b);
       return FALSE;
     }
   return TRUE;
@@ -346,7 +347,7 @@ bw_axis_log (double data_min, double data_max, guint target_ticks, BwLogMinor mi
   if (e_hi - e_lo > BW_AXIS_LOG_MAX_DECADES)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "axis range: more than %d decades (%g to %g)", BW_AXIS_LOG_MAX_DECADES, lo,
+                   BW_ ("axis range: more than %d decades (%g to %g)"), BW_AXIS_LOG_MAX_DECADES, lo,
                    hi);
       return FALSE;
     }
@@ -372,7 +373,7 @@ bw_axis_fixed (BwAxisScale scale, double lo, double hi, guint target_ticks, BwLo
   if (!(lo < hi))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "axis range: minimum must be below maximum (got %g to %g)", lo, hi);
+                   BW_ ("axis range: minimum must be below maximum (got %g to %g)"), lo, hi);
       return FALSE;
     }
   if (scale == BW_AXIS_LINEAR)
@@ -380,7 +381,7 @@ bw_axis_fixed (BwAxisScale scale, double lo, double hi, guint target_ticks, BwLo
       if (!linear_axis (lo, hi, target_ticks, FALSE, out))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "axis range: no tick step fits %g to %g", lo, hi);
+                       BW_ ("axis range: no tick step fits %g to %g"), lo, hi);
           return FALSE;
         }
       return TRUE;
@@ -395,7 +396,7 @@ bw_axis_fixed (BwAxisScale scale, double lo, double hi, guint target_ticks, BwLo
       if (log10 (hi) - log10 (lo) > BW_AXIS_LOG_MAX_DECADES)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "axis range: more than %d decades (%g to %g)", BW_AXIS_LOG_MAX_DECADES,
+                       BW_ ("axis range: more than %d decades (%g to %g)"), BW_AXIS_LOG_MAX_DECADES,
                        lo, hi);
           return FALSE;
         }

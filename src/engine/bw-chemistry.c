@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 #define M_AL2SO43 (2 * BW_M_AL + 3 * (BW_M_S + 4 * BW_M_O)) /* 342.15 g/mol */
 #define M_ALOH3 (BW_M_AL + 3 * (BW_M_O + BW_M_H))           /* 78.00 g/mol */
@@ -55,7 +56,7 @@ bw_coagulant_alum (double hydrate_waters, BwCoagulant *out, GError **error)
   double m;
 
   g_return_val_if_fail (out != NULL, FALSE);
-  if (!bw_check_range (hydrate_waters, 0, 18, "hydrate", "H2O per formula unit", error))
+  if (!bw_check_range (hydrate_waters, 0, 18, BW_ ("hydrate"), "H2O per formula unit", error))
     return FALSE;
   m = M_AL2SO43 + hydrate_waters * BW_M_H2O;
   memset (out, 0, sizeof *out);
@@ -105,8 +106,8 @@ bw_coagulant_pacl (double al2o3_fraction, double basicity, BwCoagulant *out, GEr
   double al_mol_per_g;
 
   g_return_val_if_fail (out != NULL, FALSE);
-  if (!bw_check_range (al2o3_fraction, 0.01, 0.5, "Al2O3 content", "g/g", error)
-      || !bw_check_range (basicity, 0, 0.95, "basicity", "", error))
+  if (!bw_check_range (al2o3_fraction, 0.01, 0.5, BW_ ("Al2O3 content"), "g/g", error)
+      || !bw_check_range (basicity, 0, 0.95, BW_ ("basicity"), "", error))
     return FALSE;
   al_mol_per_g = al2o3_fraction * 2 / M_AL2O3;
   memset (out, 0, sizeof *out);
@@ -123,9 +124,9 @@ bw_coagulant_user (double metal_fraction, double alkalinity_factor, double sludg
                    BwCoagulant *out, GError **error)
 {
   g_return_val_if_fail (out != NULL, FALSE);
-  if (!bw_check_range (metal_fraction, 0, 1, "metal fraction", "g/g", error)
-      || !bw_check_range (alkalinity_factor, 0, 5, "alkalinity factor", "g CaCO3/g", error)
-      || !bw_check_range (sludge_factor, 0, 10, "sludge factor", "g/g", error))
+  if (!bw_check_range (metal_fraction, 0, 1, BW_ ("metal fraction"), "g/g", error)
+      || !bw_check_range (alkalinity_factor, 0, 5, BW_ ("alkalinity factor"), "g CaCO3/g", error)
+      || !bw_check_range (sludge_factor, 0, 10, BW_ ("sludge factor"), "g/g", error))
     return FALSE;
   memset (out, 0, sizeof *out);
   out->kind = BW_COAGULANT_USER;
@@ -164,23 +165,23 @@ bw_dosing_evaluate (const BwCoagulant *c, const BwDosing *d, BwDosingResult *out
   BwDosingResult r = { 0 };
 
   g_return_val_if_fail (c != NULL && d != NULL && out != NULL, FALSE);
-  if (!bw_check_range (d->dose_kg_m3, 0, 1.0, "dose", "kg/m³", error)
-      || !bw_check_positive (d->flow_m3_s, "flow", error)
-      || !bw_check_range (d->flow_m3_s, 0, 1e4, "flow", "m³/s", error))
+  if (!bw_check_range (d->dose_kg_m3, 0, 1.0, BW_ ("dose"), "kg/m³", error)
+      || !bw_check_positive (d->flow_m3_s, BW_ ("flow"), error)
+      || !bw_check_range (d->flow_m3_s, 0, 1e4, BW_ ("flow"), "m³/s", error))
     return FALSE;
-  if ((given (d->raw_alkalinity_kg_m3) && !bw_check_range (d->raw_alkalinity_kg_m3, 0, 2, "alkalinity", "kg/m³", error))
-      || (given (d->residual_target_kg_m3) && !bw_check_range (d->residual_target_kg_m3, 0, 2, "residual alkalinity target", "kg/m³", error))
-      || (given (d->turbidity_NTU) && !bw_check_range (d->turbidity_NTU, 0, 1e5, "turbidity", "NTU", error))
-      || (given (d->ss_factor) && !bw_check_range (d->ss_factor, 0, 10, "suspended solids factor", "mg/L per NTU", error))
-      || (given (d->polymer_kg_m3) && !bw_check_range (d->polymer_kg_m3, 0, 1, "other additives", "kg/m³", error)))
+  if ((given (d->raw_alkalinity_kg_m3) && !bw_check_range (d->raw_alkalinity_kg_m3, 0, 2, BW_ ("alkalinity"), "kg/m³", error))
+      || (given (d->residual_target_kg_m3) && !bw_check_range (d->residual_target_kg_m3, 0, 2, BW_ ("residual alkalinity target"), "kg/m³", error))
+      || (given (d->turbidity_NTU) && !bw_check_range (d->turbidity_NTU, 0, 1e5, BW_ ("turbidity"), "NTU", error))
+      || (given (d->ss_factor) && !bw_check_range (d->ss_factor, 0, 10, BW_ ("suspended solids factor"), "mg/L per NTU", error))
+      || (given (d->polymer_kg_m3) && !bw_check_range (d->polymer_kg_m3, 0, 1, BW_ ("other additives"), "kg/m³", error)))
     return FALSE;
 
   /* Feed: mass rate = dose (kg/m3) x flow (m3/s). */
   r.feed_kg_s = d->dose_kg_m3 * d->flow_m3_s;
   if (given (d->solution_fraction) || given (d->solution_density_kg_m3))
     {
-      if (!bw_check_range (d->solution_fraction, 1e-4, 1, "solution strength", "g/g", error)
-          || !bw_check_range (d->solution_density_kg_m3, 500, 3000, "solution density", "kg/m³", error))
+      if (!bw_check_range (d->solution_fraction, 1e-4, 1, BW_ ("solution strength"), "g/g", error)
+          || !bw_check_range (d->solution_density_kg_m3, 500, 3000, BW_ ("solution density"), "kg/m³", error))
         return FALSE;
       r.solution_m3_s = r.feed_kg_s / (d->solution_fraction * d->solution_density_kg_m3);
     }
@@ -221,8 +222,8 @@ bw_dosing_evaluate (const BwCoagulant *c, const BwDosing *d, BwDosingResult *out
         {
           const double ss = given (d->solids_sg) ? d->solids_sg : 1.4;
           double rho;
-          if (!bw_check_range (d->solids_fraction, 1e-4, 0.6, "solids content", "g/g", error)
-              || !bw_check_range (ss, 1.0, 4.0, "solids specific gravity", "", error))
+          if (!bw_check_range (d->solids_fraction, 1e-4, 0.6, BW_ ("solids content"), "g/g", error)
+              || !bw_check_range (ss, 1.0, 4.0, BW_ ("solids specific gravity"), "", error))
             return FALSE;
           /* Sludge density from its water and solids: 1/rho = (1 - P)/rho_w + P/(S_s rho_w),
            * rho_w = 1000 kg/m3 (mass-volume relation for sludges, e.g. Metcalf & Eddy; from

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 static const char *const flow_names[BW_N_FLOW_KINDS] = {
   "minimum", "average-day", "maximum-day", "peak-hour", "future",
@@ -200,13 +201,13 @@ limits_coherent (const BwLimits *l, const char *id, const char *which, GError **
   if ((l->has_min && !isfinite (l->min)) || (l->has_max && !isfinite (l->max)))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                   "criterion %s: a %s limit is not a finite number", id, which);
+                   BW_ ("criterion %s: a %s limit is not a finite number"), id, which);
       return FALSE;
     }
   if (l->has_min && l->has_max && l->min > l->max)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "criterion %s: the %s minimum %g is above its maximum %g", id, which, l->min,
+                   BW_ ("criterion %s: the %s minimum %g is above its maximum %g"), id, which, l->min,
                    l->max);
       return FALSE;
     }
@@ -223,30 +224,30 @@ bw_criteria_set_add (BwCriteriaSet *set, BwCriterion *c, GError **error)
   id = c->id ? c->id : "(no id)";
   if (c->id == NULL || c->id[0] == '\0')
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "criterion: it has no id");
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("criterion: it has no id"));
       return FALSE;
     }
   if (bw_criteria_set_find (set, c->id))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "criterion %s: the id is used twice in set %s", id, set->id);
+                   BW_ ("criterion %s: the id is used twice in set %s"), id, set->id);
       return FALSE;
     }
   if (c->applies_to == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "criterion %s: it applies to no unit type", id);
+                   BW_ ("criterion %s: it applies to no unit type"), id);
       return FALSE;
     }
   if (!c->required.has_min && !c->required.has_max && !c->preferred.has_min
       && !c->preferred.has_max)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "criterion %s: it has neither a required nor a preferred limit", id);
+                   BW_ ("criterion %s: it has neither a required nor a preferred limit"), id);
       return FALSE;
     }
-  if (!limits_coherent (&c->required, id, "required", error)
-      || !limits_coherent (&c->preferred, id, "preferred", error))
+  if (!limits_coherent (&c->required, id, BW_ ("required"), error)
+      || !limits_coherent (&c->preferred, id, BW_ ("preferred"), error))
     return FALSE;
   /* A preferred range must lie within the required one, or a value could warn and fail at once
    * for the same reason. */
@@ -254,13 +255,13 @@ bw_criteria_set_add (BwCriteriaSet *set, BwCriterion *c, GError **error)
       || (c->required.has_max && c->preferred.has_max && c->preferred.max > c->required.max))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "criterion %s: the preferred range reaches outside the required one", id);
+                   BW_ ("criterion %s: the preferred range reaches outside the required one"), id);
       return FALSE;
     }
   if (c->document == NULL || c->document[0] == '\0')
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "criterion %s: it cites no document", id);
+                   BW_ ("criterion %s: it cites no document"), id);
       return FALSE;
     }
   g_ptr_array_add (set->criteria, g_steal_pointer (&owned));

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 typedef enum
 {
@@ -342,7 +343,7 @@ container (BwProject *p, const char *train_id, const char *parent_id, GError **e
       if (!locate (p, parent_id, &at) || at.parent != NULL)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "%s: no such unit in the project", parent_id);
+                       BW_ ("%s: no such unit in the project"), parent_id);
           return NULL;
         }
       return at.unit->stages;
@@ -351,7 +352,7 @@ container (BwProject *p, const char *train_id, const char *parent_id, GError **e
   if (t == NULL)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: no such train in the project", train_id ? train_id : "");
+                   BW_ ("%s: no such train in the project"), train_id ? train_id : "");
       return NULL;
     }
   return t->units;
@@ -385,7 +386,7 @@ unit_label (const BwProcessUnit *u)
 static gboolean
 not_found (const char *id, GError **error)
 {
-  g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "%s: no such unit in the project",
+  g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("%s: no such unit in the project"),
                id ? id : "");
   return FALSE;
 }
@@ -492,7 +493,7 @@ apply_change (BwEdit *e, BwProject *p, GError **error)
         if (at.parent != NULL && (e->a != 1 || e->b != 0))
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                         "%s: a flocculator stage has no parallel or standby units", e->unit_id);
+                         BW_ ("%s: a flocculator stage has no parallel or standby units"), e->unit_id);
             return FALSE;
           }
         had_standby = any_standby (p);
@@ -579,8 +580,8 @@ apply_change (BwEdit *e, BwProject *p, GError **error)
         if (e->delta == 0 || to < 0 || to >= (int) at.list->len)
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                         "%s: it is already %s in its %s", e->unit_id,
-                         e->delta < 0 ? "first" : "last", at.parent ? "flocculator" : "train");
+                         BW_ ("%s: it is already %s in its %s"), e->unit_id,
+                         e->delta < 0 ? BW_ ("first") : BW_ ("last"), at.parent ? BW_ ("flocculator") : BW_ ("train"));
             return FALSE;
           }
         g_ptr_array_steal_index (at.list, at.index);
@@ -636,7 +637,7 @@ apply_change (BwEdit *e, BwProject *p, GError **error)
         if (e->a >= p->cases->len)
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                         "load case: there is no case %u", e->a + 1);
+                         BW_ ("load case: there is no case %u"), e->a + 1);
             return FALSE;
           }
         c = &g_array_index (p->cases, BwLoadCase, e->a);

@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "engine/bw-floc.h"
 #include "engine/bw-mixing.h"
 #include "engine/bw-sedimentation.h"
@@ -71,7 +72,7 @@ impeller_from (const BwProcessUnit *u, BwImpeller *imp, GError **error)
       if (np <= 0)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "power number: a custom impeller needs one");
+                       BW_ ("power number: a custom impeller needs one"));
           return FALSE;
         }
       imp->kind = BW_IMPELLER_RUSHTON; /* unused: the power number given replaces the library */
@@ -180,7 +181,7 @@ stage_from (const BwProcessUnit *floc, const BwProcessUnit *st, BwFlocStage *out
       return TRUE;
     default:
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: a %s is not a flocculator stage", st->id, bw_process_type_label (st->type));
+                   BW_ ("%s: a %s is not a flocculator stage"), st->id, BW_ (bw_process_type_label (st->type)));
       return FALSE;
     }
 }
@@ -196,7 +197,7 @@ eval_flocculator (const BwProcessUnit *u, double q, const BwWater *w, BwQuantity
   if (u->stages->len > BW_FLOC_MAX_STAGES)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "stages: a flocculator takes at most %d (got %u)", BW_FLOC_MAX_STAGES,
+                   BW_ ("stages: a flocculator takes at most %d (got %u)"), BW_FLOC_MAX_STAGES,
                    u->stages->len);
       return FALSE;
     }
@@ -310,7 +311,7 @@ eval_clarifier (const BwProcessUnit *u, double q, BwQuantitySet *s, GError **err
   if (c.launder == BW_LAUNDER_INBOARD && c.launder_radius_m <= 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "launder radius: an inboard launder needs its radius");
+                   BW_ ("launder radius: an inboard launder needs its radius"));
       return FALSE;
     }
   if (!bw_clarifier_evaluate (&c, q, &r, error))
@@ -367,7 +368,7 @@ static gboolean
 prefix_error (GError **error, const char *id)
 {
   if (error && *error)
-    g_prefix_error (error, "%s: ", id);
+    g_prefix_error (error, BW_ ("%s: "), id);
   return FALSE;
 }
 
@@ -433,7 +434,7 @@ bw_evaluate_unit_case (const BwProcessUnit *u, double q, const BwWater *w, BwQua
       return eval_settler (u, q, w, out, warnings, error);
     default:
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: a %s cannot stand on its own in a train", u->id, bw_process_type_label (u->type));
+                   BW_ ("%s: a %s cannot stand on its own in a train"), u->id, BW_ (bw_process_type_label (u->type)));
       return FALSE;
     }
 }
@@ -514,7 +515,7 @@ bw_project_evaluate (const BwProject *p, GError **error)
   if (n == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "load cases: none is enabled");
+                   BW_ ("load cases: none is enabled"));
       return NULL;
     }
 
@@ -531,8 +532,8 @@ bw_project_evaluate (const BwProject *p, GError **error)
           if (!bw_unit_element_type (u, &type))
             {
               g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                           "%s: a %s cannot stand on its own in a train", u->id,
-                           bw_process_type_label (u->type));
+                           BW_ ("%s: a %s cannot stand on its own in a train"), u->id,
+                           BW_ (bw_process_type_label (u->type)));
               return NULL;
             }
           e = element_new (r, t, u, NULL, type, 0);
@@ -563,7 +564,7 @@ bw_project_evaluate (const BwProject *p, GError **error)
               if (!all_finite (&e->values[c]))
                 {
                   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                               "%s: a result is not finite; the inputs are out of the models' range",
+                               BW_ ("%s: a result is not finite; the inputs are out of the models' range"),
                                u->id);
                   return NULL;
                 }

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Monotone one-dimensional solves work on the logarithm of the unknown: stop when the bracket is
  * narrower than this relative width (the target G is then met to a few 1e-14), or give up after
@@ -31,7 +32,7 @@ check_count (guint value, guint lo, guint hi, const char *field, GError **error)
   if (value >= lo && value <= hi)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: %u is outside the valid range %u to %u", field, value, lo, hi);
+               BW_ ("%s: %u is outside the valid range %u to %u"), field, value, lo, hi);
   return FALSE;
 }
 
@@ -87,44 +88,44 @@ check_paddle (const BwPaddle *p, GError **error)
   if ((guint) p->shaft >= BW_N_SHAFT_ORIENTATIONS)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "shaft orientation: unknown value %d", (int) p->shaft);
+                   BW_ ("shaft orientation: unknown value %d"), (int) p->shaft);
       return FALSE;
     }
-  if (!check_count (p->n_wheels, 1, 1000, "paddle wheels", error)
-      || !check_count (p->arms_per_wheel, 1, 1000, "arms per wheel", error)
-      || !check_count (p->n_rings, 1, BW_PADDLE_MAX_RINGS, "blades per arm", error)
-      || !bw_check_positive (p->blade_length_m, "blade length", error)
-      || !bw_check_positive (p->blade_width_m, "blade width", error)
-      || !bw_check_positive (p->speed_rev_s, "rotational speed", error)
-      || !bw_check_nonnegative (p->drag_coefficient, "drag coefficient", error)
-      || !bw_check_finite (p->relative_velocity_factor, "relative velocity factor", error))
+  if (!check_count (p->n_wheels, 1, 1000, BW_ ("paddle wheels"), error)
+      || !check_count (p->arms_per_wheel, 1, 1000, BW_ ("arms per wheel"), error)
+      || !check_count (p->n_rings, 1, BW_PADDLE_MAX_RINGS, BW_ ("blades per arm"), error)
+      || !bw_check_positive (p->blade_length_m, BW_ ("blade length"), error)
+      || !bw_check_positive (p->blade_width_m, BW_ ("blade width"), error)
+      || !bw_check_positive (p->speed_rev_s, BW_ ("rotational speed"), error)
+      || !bw_check_nonnegative (p->drag_coefficient, BW_ ("drag coefficient"), error)
+      || !bw_check_finite (p->relative_velocity_factor, BW_ ("relative velocity factor"), error))
     return FALSE;
   if (!(p->relative_velocity_factor > 0.0 && p->relative_velocity_factor <= 1.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "relative velocity factor: must be above 0 and at most 1 (got %g): a blade "
-                   "cannot move faster relative to the water than it moves itself",
+                   BW_ ("relative velocity factor: must be above 0 and at most 1 (got %g): a blade "
+                   "cannot move faster relative to the water than it moves itself"),
                    p->relative_velocity_factor);
       return FALSE;
     }
   for (guint i = 0; i < p->n_rings; i++)
     {
       const double r = p->ring_radius_m[i];
-      if (!bw_check_positive (r, "blade radius", error))
+      if (!bw_check_positive (r, BW_ ("blade radius"), error))
         return FALSE;
       if (r - p->blade_width_m / 2.0 <= 0.0)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                       "blade radius: %g m with a %g m wide blade reaches across the shaft "
-                       "(the radius must exceed half the blade width)", r, p->blade_width_m);
+                       BW_ ("blade radius: %g m with a %g m wide blade reaches across the shaft "
+                       "(the radius must exceed half the blade width)"), r, p->blade_width_m);
           return FALSE;
         }
       for (guint k = 0; k < i; k++)
         if (fabs (r - p->ring_radius_m[k]) < p->blade_width_m)
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                         "blade radius: blades at %g m and %g m are closer than the blade width "
-                         "%g m, so they overlap", p->ring_radius_m[k], r, p->blade_width_m);
+                         BW_ ("blade radius: blades at %g m and %g m are closer than the blade width "
+                         "%g m, so they overlap"), p->ring_radius_m[k], r, p->blade_width_m);
             return FALSE;
           }
     }
@@ -164,7 +165,7 @@ bw_paddle_evaluate (const BwPaddle *paddle, const BwWater *water, BwPaddleResult
     }
   per_ring = cd * area * water->density_kg_m3 / 2.0;
   p = per_radius * per_ring * sum_v3;
-  if (!bw_check_result (p, "rotational speed", "paddle power", error))
+  if (!bw_check_result (p, BW_ ("rotational speed"), BW_ ("paddle power"), error))
     return FALSE;
 
   out->n_blades = per_radius * paddle->n_rings;
@@ -175,8 +176,8 @@ bw_paddle_evaluate (const BwPaddle *paddle, const BwWater *water, BwPaddleResult
   out->relative_velocity_m_s = paddle->relative_velocity_factor * out->tip_speed_m_s;
   out->power_W = p;
   out->swept_radius_m = r_max + paddle->blade_width_m / 2.0;
-  return bw_check_result (out->blade_area_m2, "blade length", "blade area", error)
-         && bw_check_result (out->edge_speed_m_s, "rotational speed", "tip speed", error);
+  return bw_check_result (out->blade_area_m2, BW_ ("blade length"), BW_ ("blade area"), error)
+         && bw_check_result (out->edge_speed_m_s, BW_ ("rotational speed"), BW_ ("tip speed"), error);
 }
 
 /* --- baffled channels --- */
@@ -220,17 +221,17 @@ bw_baffled_channel_evaluate (const BwBaffledChannel *channel, double flow_m3_s,
   if ((guint) c->layout >= BW_N_BAFFLE_LAYOUTS)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "baffle layout: unknown value %d", (int) c->layout);
+                   BW_ ("baffle layout: unknown value %d"), (int) c->layout);
       return FALSE;
     }
   if (!bw_water_check (water, error)
-      || !bw_check_positive (flow_m3_s, "flow", error)
-      || !check_count (c->n_passes, 1, 10000, "passes", error)
-      || !bw_check_positive (c->spacing_m, "baffle spacing", error)
-      || !bw_check_positive (c->water_depth_m, "water depth", error)
-      || !bw_check_positive (c->pass_length_m, "pass length", error)
-      || !bw_check_nonnegative (c->turn_loss_k, "turn loss coefficient", error)
-      || !bw_check_nonnegative (c->manning_n, "manning n", error))
+      || !bw_check_positive (flow_m3_s, BW_ ("flow"), error)
+      || !check_count (c->n_passes, 1, 10000, BW_ ("passes"), error)
+      || !bw_check_positive (c->spacing_m, BW_ ("baffle spacing"), error)
+      || !bw_check_positive (c->water_depth_m, BW_ ("water depth"), error)
+      || !bw_check_positive (c->pass_length_m, BW_ ("pass length"), error)
+      || !bw_check_nonnegative (c->turn_loss_k, BW_ ("turn loss coefficient"), error)
+      || !bw_check_nonnegative (c->manning_n, BW_ ("manning n"), error))
     return FALSE;
 
   if (c->layout == BW_BAFFLE_AROUND_THE_END)
@@ -250,15 +251,15 @@ bw_baffled_channel_evaluate (const BwBaffledChannel *channel, double flow_m3_s,
   hf = path * (c->manning_n * v) * (c->manning_n * v) / pow (r, 4.0 / 3.0);
   ht = (c->n_passes - 1) * c->turn_loss_k * v * v / (2.0 * BW_GRAVITY_M_S2);
   volume = c->n_passes * c->spacing_m * c->water_depth_m * c->pass_length_m;
-  if (!bw_check_result (v, "baffle spacing", "channel velocity", error)
-      || !bw_check_result (hf + ht, "baffle spacing", "head loss", error)
-      || !bw_check_result (volume, "pass length", "volume", error))
+  if (!bw_check_result (v, BW_ ("baffle spacing"), BW_ ("channel velocity"), error)
+      || !bw_check_result (hf + ht, BW_ ("baffle spacing"), BW_ ("head loss"), error)
+      || !bw_check_result (volume, BW_ ("pass length"), BW_ ("volume"), error))
     return FALSE;
   if (!(hf + ht > 0.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "manning n: with no friction and no turn losses the channel loses no head, "
-                   "so it does no mixing");
+                   BW_ ("manning n: with no friction and no turn losses the channel loses no head, "
+                   "so it does no mixing"));
       return FALSE;
     }
   if (!bw_hydraulic_mixer_evaluate (hf + ht, flow_m3_s, volume, water, &hyd, error))
@@ -284,12 +285,12 @@ bw_baffled_channel_evaluate (const BwBaffledChannel *channel, double flow_m3_s,
 static gboolean
 compartment_volume (const BwCompartment *c, double *volume_m3, GError **error)
 {
-  if (!bw_check_positive (c->length_m, "compartment length", error)
-      || !bw_check_positive (c->width_m, "compartment width", error)
-      || !bw_check_positive (c->depth_m, "compartment depth", error))
+  if (!bw_check_positive (c->length_m, BW_ ("compartment length"), error)
+      || !bw_check_positive (c->width_m, BW_ ("compartment width"), error)
+      || !bw_check_positive (c->depth_m, BW_ ("compartment depth"), error))
     return FALSE;
   *volume_m3 = c->length_m * c->width_m * c->depth_m;
-  return bw_check_result (*volume_m3, "compartment length", "volume", error);
+  return bw_check_result (*volume_m3, BW_ ("compartment length"), BW_ ("volume"), error);
 }
 
 /* The reel must fit its compartment: the swept circle inside the plane the blades turn in, and
@@ -312,18 +313,18 @@ check_paddle_fit (const BwPaddle *p, const BwCompartment *c, GError **error)
   if (swept > half)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "blade radius: the outermost blade (%g m + half its %g m width) reaches %g m "
-                   "from the shaft, beyond the compartment (half its %s is %g m)",
+                   BW_ ("blade radius: the outermost blade (%g m + half its %g m width) reaches %g m "
+                   "from the shaft, beyond the compartment (half its %s is %g m)"),
                    r_max, p->blade_width_m, swept,
-                   a <= b ? "length" : (horizontal ? "depth" : "width"), half);
+                   a <= b ? BW_ ("length") : (horizontal ? BW_ ("depth") : BW_ ("width")), half);
       return FALSE;
     }
   if (p->n_wheels * p->blade_length_m > along)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "blade length: %u wheel(s) of %g m blades need %g m along the shaft; the "
-                   "compartment %s is %g m", p->n_wheels, p->blade_length_m,
-                   p->n_wheels * p->blade_length_m, horizontal ? "width" : "depth", along);
+                   BW_ ("blade length: %u wheel(s) of %g m blades need %g m along the shaft; the "
+                   "compartment %s is %g m"), p->n_wheels, p->blade_length_m,
+                   p->n_wheels * p->blade_length_m, horizontal ? BW_ ("width") : BW_ ("depth"), along);
       return FALSE;
     }
   return TRUE;
@@ -337,7 +338,7 @@ check_turbine_fit (const BwImpeller *imp, const BwCompartment *c, GError **error
   if (imp->diameter_m >= room)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "impeller diameter: %g m does not fit in a compartment %g m by %g m in plan",
+                   BW_ ("impeller diameter: %g m does not fit in a compartment %g m by %g m in plan"),
                    imp->diameter_m, c->length_m, c->width_m);
       return FALSE;
     }
@@ -353,7 +354,7 @@ bw_floc_stage_evaluate (const BwFlocStage *stage, double flow_m3_s, const BwWate
   g_return_val_if_fail (stage != NULL && water != NULL && out != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  if (!bw_water_check (water, error) || !bw_check_positive (flow_m3_s, "flow", error))
+  if (!bw_water_check (water, error) || !bw_check_positive (flow_m3_s, BW_ ("flow"), error))
     return FALSE;
 
   memset (out, 0, sizeof *out);
@@ -384,7 +385,7 @@ bw_floc_stage_evaluate (const BwFlocStage *stage, double flow_m3_s, const BwWate
       break;
     default:
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "stage kind: unknown value %d", (int) stage->kind);
+                   BW_ ("stage kind: unknown value %d"), (int) stage->kind);
       return FALSE;
     }
 
@@ -393,8 +394,8 @@ bw_floc_stage_evaluate (const BwFlocStage *stage, double flow_m3_s, const BwWate
   if (!bw_velocity_gradient (out->power_W, v, water, &out->G_per_s, error))
     return FALSE;
   out->Gt = out->G_per_s * out->detention_s;
-  return bw_check_result (out->detention_s, "flow", "detention time", error)
-         && bw_check_result (out->Gt, "flow", "Gt", error);
+  return bw_check_result (out->detention_s, BW_ ("flow"), BW_ ("detention time"), error)
+         && bw_check_result (out->Gt, BW_ ("flow"), BW_ ("Gt"), error);
 }
 
 gboolean
@@ -407,8 +408,8 @@ bw_flocculator_evaluate (const BwFlocculator *floc, const BwWater *water, BwFloc
   g_return_val_if_fail (floc != NULL && water != NULL && out != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  if (!bw_water_check (water, error) || !bw_check_positive (floc->flow_m3_s, "flow", error)
-      || !check_count (floc->n_stages, 1, BW_FLOC_MAX_STAGES, "stages", error))
+  if (!bw_water_check (water, error) || !bw_check_positive (floc->flow_m3_s, BW_ ("flow"), error)
+      || !check_count (floc->n_stages, 1, BW_FLOC_MAX_STAGES, BW_ ("stages"), error))
     return FALSE;
 
   for (guint i = 0; i < floc->n_stages; i++)
@@ -416,7 +417,7 @@ bw_flocculator_evaluate (const BwFlocculator *floc, const BwWater *water, BwFloc
       BwFlocStageResult *r = &out->stages[i];
       if (!bw_floc_stage_evaluate (&floc->stages[i], floc->flow_m3_s, water, r, error))
         {
-          g_prefix_error (error, "stage %u ", i + 1);
+          g_prefix_error (error, BW_ ("stage %u "), i + 1);
           return FALSE;
         }
       sum_p += r->power_W;
@@ -439,8 +440,8 @@ bw_flocculator_evaluate (const BwFlocculator *floc, const BwWater *water, BwFloc
   out->G_time_mean_per_s = sum_gt / sum_t;
   out->G_power_mean_per_s = sqrt (sum_p / (water->dynamic_viscosity_Pa_s * sum_v));
   out->warnings = warnings;
-  return bw_check_result (out->G_time_mean_per_s, "flow", "mean velocity gradient", error)
-         && bw_check_result (out->G_power_mean_per_s, "flow", "mean velocity gradient", error);
+  return bw_check_result (out->G_time_mean_per_s, BW_ ("flow"), BW_ ("mean velocity gradient"), error)
+         && bw_check_result (out->G_power_mean_per_s, BW_ ("flow"), BW_ ("mean velocity gradient"), error);
 }
 
 /* --- design solves --- */
@@ -451,7 +452,7 @@ require_kind (const BwFlocStage *stage, BwFlocStageKind kind, GError **error)
   if (stage->kind == kind)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-               "stage kind: this solve needs a %s stage, not a %s stage",
+               BW_ ("stage kind: this solve needs a %s stage, not a %s stage"),
                bw_floc_stage_kind_name (kind), bw_floc_stage_kind_name (stage->kind));
   return FALSE;
 }
@@ -461,7 +462,7 @@ static gboolean
 target_power (const BwFlocStage *stage, double flow_m3_s, const BwWater *water, double target,
               double *volume_m3, double *power_W, GError **error)
 {
-  if (!bw_water_check (water, error) || !bw_check_positive (flow_m3_s, "flow", error)
+  if (!bw_water_check (water, error) || !bw_check_positive (flow_m3_s, BW_ ("flow"), error)
       || !compartment_volume (&stage->compartment, volume_m3, error))
     return FALSE;
   return bw_power_for_velocity_gradient (target, *volume_m3, water, power_W, error);
@@ -490,7 +491,7 @@ bw_floc_stage_paddle_speed_for_gradient (const BwFlocStage *stage, double flow_m
   if (!bw_paddle_evaluate (&trial.paddle, water, &unit, error))
     return FALSE;
   trial.paddle.speed_rev_s = cbrt (p / unit.power_W);
-  if (!bw_check_result (trial.paddle.speed_rev_s, "velocity gradient", "rotational speed", error)
+  if (!bw_check_result (trial.paddle.speed_rev_s, BW_ ("velocity gradient"), BW_ ("rotational speed"), error)
       || !bw_floc_stage_evaluate (&trial, flow_m3_s, water, &check, error))
     return FALSE;
   *out_speed_rev_s = trial.paddle.speed_rev_s;
@@ -545,14 +546,14 @@ bw_floc_stage_blade_length_for_gradient (const BwFlocStage *stage, double flow_m
   if (!(paddle_power_at_length (stage, water, hi) >= p))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "blade length: G = %g 1/s would need blades longer than %g m",
+                   BW_ ("blade length: G = %g 1/s would need blades longer than %g m"),
                    target_G_per_s, BLADE_LENGTH_MAX_M);
       return FALSE;
     }
   if (!(paddle_power_at_length (stage, water, lo) < p))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "blade length: G = %g 1/s would need blades shorter than %g m",
+                   BW_ ("blade length: G = %g 1/s would need blades shorter than %g m"),
                    target_G_per_s, BLADE_LENGTH_MIN_M);
       return FALSE;
     }
@@ -567,7 +568,7 @@ bw_floc_stage_blade_length_for_gradient (const BwFlocStage *stage, double flow_m
   if (hi - lo > REL_TOLERANCE * hi * 10.0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NO_CONVERGENCE,
-                   "blade length: the solve did not converge (bracket %g to %g m)", lo, hi);
+                   BW_ ("blade length: the solve did not converge (bracket %g to %g m)"), lo, hi);
       return FALSE;
     }
 
@@ -577,8 +578,8 @@ bw_floc_stage_blade_length_for_gradient (const BwFlocStage *stage, double flow_m
   if (stage->paddle.n_wheels * trial.paddle.blade_length_m > along)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "blade length: G = %g 1/s needs blades %.4g m long, but the compartment "
-                   "takes at most %.4g m per wheel along the shaft", target_G_per_s,
+                   BW_ ("blade length: G = %g 1/s needs blades %.4g m long, but the compartment "
+                   "takes at most %.4g m per wheel along the shaft"), target_G_per_s,
                    trial.paddle.blade_length_m, along / stage->paddle.n_wheels);
       return FALSE;
     }
@@ -641,7 +642,7 @@ bw_floc_stage_baffle_spacing_for_gradient (const BwFlocStage *stage, double flow
 
   if (!require_kind (stage, BW_FLOC_STAGE_BAFFLED, error)
       || !bw_water_check (water, error)
-      || !bw_check_positive (target_G_per_s, "velocity gradient", error))
+      || !bw_check_positive (target_G_per_s, BW_ ("velocity gradient"), error))
     return FALSE;
   /* Everything but the spacing must already be a valid channel. */
   trial = *stage;
@@ -655,15 +656,15 @@ bw_floc_stage_baffle_spacing_for_gradient (const BwFlocStage *stage, double flow
   if (!(g_lo >= target_G_per_s))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "baffle spacing: G = %g 1/s is out of reach: even baffles %g mm apart "
-                   "give only %.4g 1/s", target_G_per_s, SPACING_MIN_M * 1e3, g_lo);
+                   BW_ ("baffle spacing: G = %g 1/s is out of reach: even baffles %g mm apart "
+                   "give only %.4g 1/s"), target_G_per_s, SPACING_MIN_M * 1e3, g_lo);
       return FALSE;
     }
   if (!(g_hi <= target_G_per_s))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "baffle spacing: G = %g 1/s is out of reach: even baffles %g m apart give "
-                   "%.4g 1/s", target_G_per_s, SPACING_MAX_M, g_hi);
+                   BW_ ("baffle spacing: G = %g 1/s is out of reach: even baffles %g m apart give "
+                   "%.4g 1/s"), target_G_per_s, SPACING_MAX_M, g_hi);
       return FALSE;
     }
   for (i = 0; i < MAX_BISECTIONS && hi - lo > REL_TOLERANCE * hi; i++)
@@ -680,7 +681,7 @@ bw_floc_stage_baffle_spacing_for_gradient (const BwFlocStage *stage, double flow
   if (hi - lo > REL_TOLERANCE * hi * 10.0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NO_CONVERGENCE,
-                   "baffle spacing: the solve did not converge (bracket %g to %g m)", lo, hi);
+                   BW_ ("baffle spacing: the solve did not converge (bracket %g to %g m)"), lo, hi);
       return FALSE;
     }
   trial.channel.spacing_m = sqrt (lo * hi);

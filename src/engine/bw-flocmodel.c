@@ -8,6 +8,7 @@
 #include <math.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Golden-section search for the best G: iterations and the relative width at which it stops. */
 #define GOLDEN_MAX_ITERATIONS 300
@@ -48,8 +49,8 @@ bw_floc_kinetics_init (BwFlocKinetics *kinetics)
 static gboolean
 check_kinetics (const BwFlocKinetics *k, GError **error)
 {
-  return bw_check_positive (k->aggregation_constant, "aggregation constant", error)
-         && bw_check_nonnegative (k->breakup_constant_s, "breakup constant", error);
+  return bw_check_positive (k->aggregation_constant, BW_ ("aggregation constant"), error)
+         && bw_check_nonnegative (k->breakup_constant_s, BW_ ("breakup constant"), error);
 }
 
 static gboolean
@@ -58,7 +59,7 @@ check_compartments (guint m, GError **error)
   if (m >= 1 && m <= BW_FLOCMODEL_MAX_COMPARTMENTS)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "compartments: %u is outside the valid range 1 to %u", m,
+               BW_ ("compartments: %u is outside the valid range 1 to %u"), m,
                BW_FLOCMODEL_MAX_COMPARTMENTS);
   return FALSE;
 }
@@ -69,14 +70,14 @@ check_gradient (const BwFlocKinetics *k, double g, guint index, GError **error)
 {
   g_autofree char *where = index > 0 ? g_strdup_printf (" in compartment %u", index) : NULL;
 
-  if (!bw_check_positive (g, "velocity gradient", error))
+  if (!bw_check_positive (g, BW_ ("velocity gradient"), error))
     return FALSE;
   if (k->breakup_constant_s * g > k->aggregation_constant)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "velocity gradient: %g 1/s%s is above K_A/K_B = %g 1/s, where the model's "
+                   BW_ ("velocity gradient: %g 1/s%s is above K_A/K_B = %g 1/s, where the model's "
                    "breakup outruns aggregation and would return more primary particles than "
-                   "entered", g, where ? where : "",
+                   "entered"), g, where ? where : "",
                    k->aggregation_constant / k->breakup_constant_s);
       return FALSE;
     }
@@ -90,8 +91,8 @@ finish (double fraction, guint m, double total_time_s, double gt, BwFlocModelRes
   if (!(fraction >= DBL_MIN) || !isfinite (gt) || !isfinite (total_time_s))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "time: the model leaves a fraction of primary particles too small to "
-                   "represent (G t is far beyond any flocculator)");
+                   BW_ ("time: the model leaves a fraction of primary particles too small to "
+                   "represent (G t is far beyond any flocculator)"));
       return FALSE;
     }
   out->remaining_fraction = fraction;
@@ -122,7 +123,7 @@ bw_flocmodel_equal (const BwFlocKinetics *kinetics, double G_per_s, double total
 
   if (!check_kinetics (kinetics, error) || !check_compartments (n_compartments, error)
       || !check_gradient (kinetics, G_per_s, 0, error)
-      || !bw_check_positive (total_time_s, "time", error))
+      || !bw_check_positive (total_time_s, BW_ ("time"), error))
     return FALSE;
   return finish (equal_fraction (kinetics, G_per_s, total_time_s, n_compartments),
                  n_compartments, total_time_s, G_per_s * total_time_s, out, error);
@@ -145,9 +146,9 @@ bw_flocmodel_series (const BwFlocKinetics *kinetics, guint n_compartments, const
     {
       if (!check_gradient (kinetics, G_per_s[i], i + 1, error))
         return FALSE;
-      if (!bw_check_positive (time_s[i], "time", error))
+      if (!bw_check_positive (time_s[i], BW_ ("time"), error))
         {
-          g_prefix_error (error, "compartment %u ", i + 1);
+          g_prefix_error (error, BW_ ("compartment %u "), i + 1);
           return FALSE;
         }
     }
@@ -179,13 +180,13 @@ bw_flocmodel_best_gradient (const BwFlocKinetics *kinetics, double total_time_s,
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_kinetics (kinetics, error) || !check_compartments (n_compartments, error)
-      || !bw_check_positive (total_time_s, "time", error))
+      || !bw_check_positive (total_time_s, BW_ ("time"), error))
     return FALSE;
   if (!(kinetics->breakup_constant_s > 0.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "breakup constant: with no breakup (K_B = 0) more G always leaves fewer "
-                   "primary particles, so there is no best G");
+                   BW_ ("breakup constant: with no breakup (K_B = 0) more G always leaves fewer "
+                   "primary particles, so there is no best G"));
       return FALSE;
     }
 
@@ -195,7 +196,7 @@ bw_flocmodel_best_gradient (const BwFlocKinetics *kinetics, double total_time_s,
   if (!isfinite (g_max))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "breakup constant: %g s is too small against K_A = %g",
+                   BW_ ("breakup constant: %g s is too small against K_A = %g"),
                    kinetics->breakup_constant_s, kinetics->aggregation_constant);
       return FALSE;
     }
@@ -227,7 +228,7 @@ bw_flocmodel_best_gradient (const BwFlocKinetics *kinetics, double total_time_s,
   if (b - a > GOLDEN_REL_TOLERANCE)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NO_CONVERGENCE,
-                   "velocity gradient: the search for the best G did not converge");
+                   BW_ ("velocity gradient: the search for the best G did not converge"));
       return FALSE;
     }
   *out_G_per_s = exp ((a + b) / 2.0);

@@ -9,6 +9,7 @@
 #include <stdlib.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 static int
 by_dose (const void *a, const void *b)
@@ -24,7 +25,7 @@ bw_jar_series_prepare (BwJarSeries *s, GError **error)
   if (s->n_jars < 3 || s->n_jars > BW_JAR_MAX)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "jars: a series needs 3 to %d jars (got %u)", BW_JAR_MAX, s->n_jars);
+                   BW_ ("jars: a series needs 3 to %d jars (got %u)"), BW_JAR_MAX, s->n_jars);
       return FALSE;
     }
   for (guint i = 0; i < s->n_jars; i++)
@@ -36,11 +37,11 @@ bw_jar_series_prepare (BwJarSeries *s, GError **error)
           || !bw_check_range (j->dose_kg_m3, 0, 1, fd, "kg/m³", error)
           || !bw_check_nonnegative (j->turbidity_NTU, ft, error))
         return FALSE;
-      if (s->has_ph && !bw_check_range (j->ph, 0, 14, "pH", "", error))
+      if (s->has_ph && !bw_check_range (j->ph, 0, 14, BW_ ("pH"), "", error))
         return FALSE;
-      if (s->has_zeta && !bw_check_range (j->zeta_V, -0.5, 0.5, "zeta potential", "V", error))
+      if (s->has_zeta && !bw_check_range (j->zeta_V, -0.5, 0.5, BW_ ("zeta potential"), "V", error))
         return FALSE;
-      if (s->has_mobility && !bw_check_finite (j->mobility_m2_V_s, "mobility", error))
+      if (s->has_mobility && !bw_check_finite (j->mobility_m2_V_s, BW_ ("mobility"), error))
         return FALSE;
     }
   qsort (s->jars, s->n_jars, sizeof (BwJar), by_dose);
@@ -48,7 +49,7 @@ bw_jar_series_prepare (BwJarSeries *s, GError **error)
     if (s->jars[i].dose_kg_m3 == s->jars[i - 1].dose_kg_m3)
       {
         g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                     "dose: %g mg/L appears in two jars; average them or drop one",
+                     BW_ ("dose: %g mg/L appears in two jars; average them or drop one"),
                      s->jars[i].dose_kg_m3 * 1e3);
         return FALSE;
       }
@@ -145,7 +146,7 @@ bw_jar_analyse (const BwJarSeries *s, double target_NTU, double threshold_V, BwJ
   g_return_val_if_fail (s != NULL && out != NULL, FALSE);
   if (s->n_jars < 3)
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "jars: prepare the series first");
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("jars: prepare the series first"));
       return FALSE;
     }
   j = s->jars;
@@ -159,7 +160,7 @@ bw_jar_analyse (const BwJarSeries *s, double target_NTU, double threshold_V, BwJ
 
   if (target_NTU >= 0)
     {
-      if (!bw_check_finite (target_NTU, "target", error))
+      if (!bw_check_finite (target_NTU, BW_ ("target"), error))
         return FALSE;
       if (j[0].turbidity_NTU <= target_NTU)
         {
@@ -191,7 +192,7 @@ bw_jar_analyse (const BwJarSeries *s, double target_NTU, double threshold_V, BwJ
       if (!(threshold_V > 0) || !isfinite (threshold_V))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "threshold: the |zeta| limit must be a positive number");
+                       BW_ ("threshold: the |zeta| limit must be a positive number"));
           return FALSE;
         }
       /* The window around the jar of least |zeta|, when that jar is inside the limit. */

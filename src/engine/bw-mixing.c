@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /*
  * Turbulent (Re > 1e4), fully baffled power numbers, dimensionless.
@@ -72,10 +73,10 @@ resolve_power_number (const BwImpeller *imp, gboolean baffled, double *np, GErro
   if (!impeller_kind_valid (imp->kind))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "impeller kind: unknown value %d", (int) imp->kind);
+                   BW_ ("impeller kind: unknown value %d"), (int) imp->kind);
       return FALSE;
     }
-  if (!bw_check_nonnegative (imp->power_number, "power number", error))
+  if (!bw_check_nonnegative (imp->power_number, BW_ ("power number"), error))
     return FALSE;
   if (imp->power_number > 0.0)
     {
@@ -87,9 +88,9 @@ resolve_power_number (const BwImpeller *imp, gboolean baffled, double *np, GErro
       /* Without baffles the contents swirl with the impeller and a vortex forms; the power drawn
        * is far below the baffled value and depends on the tank (common practice, no source). */
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "power number: an unbaffled tank swirls and vortexes, so the library's baffled "
+                   BW_ ("power number: an unbaffled tank swirls and vortexes, so the library's baffled "
                    "power number for the %s impeller does not apply; give the power number "
-                   "measured or quoted for this tank", impeller_library[imp->kind].name);
+                   "measured or quoted for this tank"), impeller_library[imp->kind].name);
       return FALSE;
     }
   *np = impeller_library[imp->kind].power_number;
@@ -114,16 +115,16 @@ bw_impeller_evaluate (const BwImpeller *impeller, gboolean baffled, const BwWate
 
   if (!bw_water_check (water, error)
       || !resolve_power_number (impeller, baffled, &np, error)
-      || !bw_check_positive (impeller->diameter_m, "impeller diameter", error)
-      || !bw_check_positive (impeller->speed_rev_s, "rotational speed", error))
+      || !bw_check_positive (impeller->diameter_m, BW_ ("impeller diameter"), error)
+      || !bw_check_positive (impeller->speed_rev_s, BW_ ("rotational speed"), error))
     return FALSE;
 
   n = impeller->speed_rev_s;
   d = impeller->diameter_m;
   p = np * water->density_kg_m3 * n * n * n * pow (d, 5.0);
   re = water->density_kg_m3 * n * d * d / water->dynamic_viscosity_Pa_s;
-  if (!bw_check_result (p, "rotational speed", "impeller power", error)
-      || !bw_check_result (re, "rotational speed", "impeller Reynolds number", error))
+  if (!bw_check_result (p, BW_ ("rotational speed"), BW_ ("impeller power"), error)
+      || !bw_check_result (re, BW_ ("rotational speed"), BW_ ("impeller Reynolds number"), error))
     return FALSE;
 
   out->power_number = np;
@@ -145,18 +146,18 @@ bw_impeller_speed_for_power (const BwImpeller *impeller, gboolean baffled, const
 
   if (!bw_water_check (water, error)
       || !resolve_power_number (impeller, baffled, &np, error)
-      || !bw_check_positive (impeller->diameter_m, "impeller diameter", error)
-      || !bw_check_positive (power_W, "power", error))
+      || !bw_check_positive (impeller->diameter_m, BW_ ("impeller diameter"), error)
+      || !bw_check_positive (power_W, BW_ ("power"), error))
     return FALSE;
 
   /* P = Np rho N^3 D^5 solved for N (Davis 2010, Example 6-7 step f). */
   n = cbrt (power_W / (np * water->density_kg_m3 * pow (impeller->diameter_m, 5.0)));
-  if (!bw_check_result (n, "power", "rotational speed", error))
+  if (!bw_check_result (n, BW_ ("power"), BW_ ("rotational speed"), error))
     return FALSE;
   if (!(n > 0.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "power: %g W is too small to give a rotational speed for this impeller",
+                   BW_ ("power: %g W is too small to give a rotational speed for this impeller"),
                    power_W);
       return FALSE;
     }
@@ -180,11 +181,11 @@ bw_velocity_gradient (double power_W, double volume_m3, const BwWater *water, do
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!bw_water_check (water, error)
-      || !bw_check_positive (power_W, "power", error)
-      || !bw_check_positive (volume_m3, "volume", error))
+      || !bw_check_positive (power_W, BW_ ("power"), error)
+      || !bw_check_positive (volume_m3, BW_ ("volume"), error))
     return FALSE;
   g = sqrt (power_W / (water->dynamic_viscosity_Pa_s * volume_m3));
-  if (!bw_check_result (g, "power", "velocity gradient", error))
+  if (!bw_check_result (g, BW_ ("power"), BW_ ("velocity gradient"), error))
     return FALSE;
   *out_G_per_s = g;
   return TRUE;
@@ -200,12 +201,12 @@ bw_power_for_velocity_gradient (double G_per_s, double volume_m3, const BwWater 
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!bw_water_check (water, error)
-      || !bw_check_positive (G_per_s, "velocity gradient", error)
-      || !bw_check_positive (volume_m3, "volume", error))
+      || !bw_check_positive (G_per_s, BW_ ("velocity gradient"), error)
+      || !bw_check_positive (volume_m3, BW_ ("volume"), error))
     return FALSE;
   /* P = mu V G^2 (Camp & Stein 1943; Davis 2010 Eq. 6-12 rearranged). */
   p = water->dynamic_viscosity_Pa_s * volume_m3 * G_per_s * G_per_s;
-  if (!bw_check_result (p, "velocity gradient", "power", error))
+  if (!bw_check_result (p, BW_ ("velocity gradient"), BW_ ("power"), error))
     return FALSE;
   *out_power_W = p;
   return TRUE;
@@ -222,16 +223,16 @@ tank_volume (const BwRapidMixTank *tank, double *volume_m3, GError **error)
   if ((guint) tank->shape >= BW_N_TANK_SHAPES)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "tank shape: unknown value %d", (int) tank->shape);
+                   BW_ ("tank shape: unknown value %d"), (int) tank->shape);
       return FALSE;
     }
-  if (!bw_check_positive (tank->width_m, "tank width", error)
-      || !bw_check_positive (tank->liquid_depth_m, "liquid depth", error))
+  if (!bw_check_positive (tank->width_m, BW_ ("tank width"), error)
+      || !bw_check_positive (tank->liquid_depth_m, BW_ ("liquid depth"), error))
     return FALSE;
   plan = tank->shape == BW_TANK_SQUARE ? tank->width_m * tank->width_m
                                        : G_PI / 4.0 * tank->width_m * tank->width_m;
   *volume_m3 = plan * tank->liquid_depth_m;
-  return bw_check_result (*volume_m3, "tank width", "volume", error);
+  return bw_check_result (*volume_m3, BW_ ("tank width"), BW_ ("volume"), error);
 }
 
 /* The impeller must fit inside the tank: its diameter below the side of a square tank or the
@@ -245,8 +246,8 @@ check_tank_geometry (const BwRapidMixTank *tank, GError **error)
   if (d >= tank->width_m)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "impeller diameter: %g m does not fit in a tank %g m %s", d, tank->width_m,
-                   tank->shape == BW_TANK_SQUARE ? "wide" : "in diameter");
+                   BW_ ("impeller diameter: %g m does not fit in a tank %g m %s"), d, tank->width_m,
+                   tank->shape == BW_TANK_SQUARE ? BW_ ("wide") : BW_ ("in diameter"));
       return FALSE;
     }
   return TRUE;
@@ -256,15 +257,15 @@ static gboolean
 check_tank (const BwRapidMixTank *tank, const BwWater *water, double *volume_m3, GError **error)
 {
   if (!bw_water_check (water, error) || !tank_volume (tank, volume_m3, error)
-      || !bw_check_positive (tank->flow_m3_s, "flow", error)
-      || !bw_check_positive (tank->impeller.diameter_m, "impeller diameter", error))
+      || !bw_check_positive (tank->flow_m3_s, BW_ ("flow"), error)
+      || !bw_check_positive (tank->impeller.diameter_m, BW_ ("impeller diameter"), error))
     return FALSE;
-  if (!bw_check_finite (tank->drive_efficiency, "drive efficiency", error))
+  if (!bw_check_finite (tank->drive_efficiency, BW_ ("drive efficiency"), error))
     return FALSE;
   if (!(tank->drive_efficiency > 0.0 && tank->drive_efficiency <= 1.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "drive efficiency: must be above 0 and at most 1 (got %g)",
+                   BW_ ("drive efficiency: must be above 0 and at most 1 (got %g)"),
                    tank->drive_efficiency);
       return FALSE;
     }
@@ -295,9 +296,9 @@ bw_rapid_mix_evaluate (const BwRapidMixTank *tank, const BwWater *water, BwRapid
   out->G_per_s = g;
   out->Gt = g * out->detention_s;
   out->warnings = imp.warnings;
-  if (!bw_check_result (out->detention_s, "flow", "detention time", error)
-      || !bw_check_result (out->Gt, "flow", "Gt", error)
-      || !bw_check_result (out->motor_power_W, "drive efficiency", "motor power", error))
+  if (!bw_check_result (out->detention_s, BW_ ("flow"), BW_ ("detention time"), error)
+      || !bw_check_result (out->Gt, BW_ ("flow"), BW_ ("Gt"), error)
+      || !bw_check_result (out->motor_power_W, BW_ ("drive efficiency"), BW_ ("motor power"), error))
     return FALSE;
   return TRUE;
 }
@@ -338,21 +339,21 @@ bw_hydraulic_mixer_evaluate (double headloss_m, double flow_m3_s, double volume_
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!bw_water_check (water, error)
-      || !bw_check_positive (headloss_m, "head loss", error)
-      || !bw_check_positive (flow_m3_s, "flow", error)
-      || !bw_check_positive (volume_m3, "volume", error))
+      || !bw_check_positive (headloss_m, BW_ ("head loss"), error)
+      || !bw_check_positive (flow_m3_s, BW_ ("flow"), error)
+      || !bw_check_positive (volume_m3, BW_ ("volume"), error))
     return FALSE;
 
   p = water->density_kg_m3 * BW_GRAVITY_M_S2 * flow_m3_s * headloss_m;
-  if (!bw_check_result (p, "head loss", "power", error)
+  if (!bw_check_result (p, BW_ ("head loss"), BW_ ("power"), error)
       || !bw_velocity_gradient (p, volume_m3, water, &g, error))
     return FALSE;
   out->power_W = p;
   out->detention_s = volume_m3 / flow_m3_s;
   out->G_per_s = g;
   out->Gt = g * out->detention_s;
-  return bw_check_result (out->detention_s, "flow", "detention time", error)
-         && bw_check_result (out->Gt, "flow", "Gt", error);
+  return bw_check_result (out->detention_s, BW_ ("flow"), BW_ ("detention time"), error)
+         && bw_check_result (out->Gt, BW_ ("flow"), BW_ ("Gt"), error);
 }
 
 gboolean
@@ -364,11 +365,11 @@ bw_hydraulic_headloss_for_gradient (double target_G_per_s, double flow_m3_s, dou
   g_return_val_if_fail (water != NULL && out_headloss_m != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  if (!bw_check_positive (flow_m3_s, "flow", error)
+  if (!bw_check_positive (flow_m3_s, BW_ ("flow"), error)
       || !bw_power_for_velocity_gradient (target_G_per_s, volume_m3, water, &p, error))
     return FALSE;
   h = p / (water->density_kg_m3 * BW_GRAVITY_M_S2 * flow_m3_s); /* h = P / (rho g Q), m */
-  if (!bw_check_result (h, "flow", "head loss", error))
+  if (!bw_check_result (h, BW_ ("flow"), BW_ ("head loss"), error))
     return FALSE;
   *out_headloss_m = h;
   return TRUE;

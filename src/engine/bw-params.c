@@ -10,6 +10,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Labels, help texts and choice names are marked for the template only: the engine stays
  * locale-free, and the workbench translates them where it shows them (the choice names are also
@@ -289,7 +290,7 @@ gboolean
 bw_param_check (const BwParamSpec *spec, double value, GError **error)
 {
   g_return_val_if_fail (spec != NULL, FALSE);
-  if (!bw_check_finite (value, spec->label, error))
+  if (!bw_check_finite (value, BW_ (spec->label), error))
     return FALSE;
   switch (spec->type)
     {
@@ -297,7 +298,7 @@ bw_param_check (const BwParamSpec *spec, double value, GError **error)
       if (value != floor (value) || bw_param_choice_name (spec, (int) value) == NULL)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "%s: not one of the offered choices", spec->label);
+                       BW_ ("%s: not one of the offered choices"), BW_ (spec->label));
           return FALSE;
         }
       return TRUE;
@@ -305,7 +306,7 @@ bw_param_check (const BwParamSpec *spec, double value, GError **error)
       if (value != floor (value) || value < spec->min || value > spec->max)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "%s: must be a whole number from %g to %g (got %g)", spec->label, spec->min,
+                       BW_ ("%s: must be a whole number from %g to %g (got %g)"), BW_ (spec->label), spec->min,
                        spec->max, value);
           return FALSE;
         }
@@ -317,8 +318,8 @@ bw_param_check (const BwParamSpec *spec, double value, GError **error)
         {
           const BwUnit *u = bw_units_si_unit (spec->kind);
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "%s: %g %s is outside the valid range (%s %g to %g %s)", spec->label, value,
-                       u->symbol, spec->min_exclusive ? "above" : "from", spec->min, spec->max,
+                       BW_ ("%s: %g %s is outside the valid range (%s %g to %g %s)"), BW_ (spec->label), value,
+                       u->symbol, spec->min_exclusive ? BW_ ("above") : BW_ ("from"), spec->min, spec->max,
                        u->symbol);
           return FALSE;
         }

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "engine/bw-water.h"
 
 BwProject *
@@ -185,22 +186,22 @@ bw_column_test_record_column (const BwColumnTestRecord *r, BwSettlingColumn *out
       || r->n_times > BW_COLUMN_MAX_TIMES)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "column test %s: %u ports and %u sampling times; 1 to %d ports and 1 to %d "
-                   "times are accepted", id, r->n_depths, r->n_times, BW_COLUMN_MAX_DEPTHS,
+                   BW_ ("column test %s: %u ports and %u sampling times; 1 to %d ports and 1 to %d "
+                   "times are accepted"), id, r->n_depths, r->n_times, BW_COLUMN_MAX_DEPTHS,
                    BW_COLUMN_MAX_TIMES);
       return FALSE;
     }
-  if (!bw_check_finite (r->initial_kg_m3, "initial concentration", &local)
-      || !bw_check_nonnegative (r->initial_kg_m3, "initial concentration", &local))
+  if (!bw_check_finite (r->initial_kg_m3, BW_ ("initial concentration"), &local)
+      || !bw_check_nonnegative (r->initial_kg_m3, BW_ ("initial concentration"), &local))
     {
-      g_set_error (error, BW_ENGINE_ERROR, local->code, "column test %s: %s", id, local->message);
+      g_set_error (error, BW_ENGINE_ERROR, local->code, BW_ ("column test %s: %s"), id, local->message);
       return FALSE;
     }
   if (r->kind == BW_COLUMN_READING_CONCENTRATION && !(r->initial_kg_m3 > 0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "column test %s: initial concentration: concentration readings need the "
-                   "initial concentration C0 (greater than zero)", id);
+                   BW_ ("column test %s: initial concentration: concentration readings need the "
+                   "initial concentration C0 (greater than zero)"), id);
       return FALSE;
     }
   out->n_depths = r->n_depths;
@@ -216,8 +217,8 @@ bw_column_test_record_column (const BwColumnTestRecord *r, BwSettlingColumn *out
             if (!isfinite (v) || v < 0 || v > r->initial_kg_m3)
               {
                 g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                             "column test %s: concentration: %g mg/L at depth %g m and %g min is "
-                             "not between 0 and the initial %g mg/L", id, v * 1000.0,
+                             BW_ ("column test %s: concentration: %g mg/L at depth %g m and %g min is "
+                             "not between 0 and the initial %g mg/L"), id, v * 1000.0,
                              r->depth_m[j], r->time_s[k] / 60.0, r->initial_kg_m3 * 1000.0);
                 return FALSE;
               }
@@ -230,7 +231,7 @@ bw_column_test_record_column (const BwColumnTestRecord *r, BwSettlingColumn *out
       }
   if (!bw_settling_column_check (out, &local))
     {
-      g_set_error (error, BW_ENGINE_ERROR, local->code, "column test %s: %s", id, local->message);
+      g_set_error (error, BW_ENGINE_ERROR, local->code, BW_ ("column test %s: %s"), id, local->message);
       return FALSE;
     }
   return TRUE;
@@ -290,7 +291,7 @@ bw_project_coagulant (const BwProject *p, BwCoagulant *out, GError **error)
       return bw_coagulant_pacl (c->al2o3_fraction, c->basicity, out, error);
     default:
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "coagulant: a project takes alum, ferric chloride, ferric sulfate or PACl");
+                   BW_ ("coagulant: a project takes alum, ferric chloride, ferric sulfate or PACl"));
       return FALSE;
     }
 }
@@ -428,8 +429,8 @@ bw_process_unit_set (BwProcessUnit *u, const char *param_id, double value, GErro
   if (i < 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: a %s has no parameter of that name", param_id,
-                   bw_process_type_label (u->type));
+                   BW_ ("%s: a %s has no parameter of that name"), param_id,
+                   BW_ (bw_process_type_label (u->type)));
       return FALSE;
     }
   if (!bw_param_check (&bw_params_of (u->type, NULL)[i], value, error))
@@ -532,32 +533,32 @@ check_unit (const BwProcessUnit *u, GHashTable *ids, gboolean is_stage, GError *
 
   if (u->id == NULL || u->id[0] == '\0')
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "unit id: a unit has no id");
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("unit id: a unit has no id"));
       return FALSE;
     }
   if (!g_hash_table_add (ids, u->id))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit id: '%s' is used twice", u->id);
+                   BW_ ("unit id: '%s' is used twice"), u->id);
       return FALSE;
     }
   if (bw_process_type_is_stage (u->type) != is_stage)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: a %s cannot stand %s", u->id, bw_process_type_label (u->type),
-                   is_stage ? "as a flocculator stage" : "on its own in a train");
+                   BW_ ("%s: a %s cannot stand %s"), u->id, BW_ (bw_process_type_label (u->type)),
+                   is_stage ? BW_ ("as a flocculator stage") : BW_ ("on its own in a train"));
       return FALSE;
     }
   if (u->n_parallel < 1 || u->n_parallel > 100)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "%s: units in parallel must be from 1 to 100 (got %u)", u->id, u->n_parallel);
+                   BW_ ("%s: units in parallel must be from 1 to 100 (got %u)"), u->id, u->n_parallel);
       return FALSE;
     }
   if (u->n_standby >= u->n_parallel)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "%s: %u standby of %u in parallel leaves none in service", u->id, u->n_standby,
+                   BW_ ("%s: %u standby of %u in parallel leaves none in service"), u->id, u->n_standby,
                    u->n_parallel);
       return FALSE;
     }
@@ -567,20 +568,20 @@ check_unit (const BwProcessUnit *u, GHashTable *ids, gboolean is_stage, GError *
       g_autoptr (GError) local = NULL;
       if (!bw_param_check (&specs[i], u->values[i], &local))
         {
-          g_set_error (error, BW_ENGINE_ERROR, local->code, "%s: %s", u->id, local->message);
+          g_set_error (error, BW_ENGINE_ERROR, local->code, BW_ ("%s: %s"), u->id, local->message);
           return FALSE;
         }
     }
   if (u->type == BW_PROCESS_FLOCCULATOR && u->stages->len == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: a flocculator needs at least one stage", u->id);
+                   BW_ ("%s: a flocculator needs at least one stage"), u->id);
       return FALSE;
     }
   if (u->type != BW_PROCESS_FLOCCULATOR && u->stages->len > 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "%s: only a flocculator has stages", u->id);
+                   BW_ ("%s: only a flocculator has stages"), u->id);
       return FALSE;
     }
   for (guint i = 0; i < u->stages->len; i++)
@@ -599,14 +600,14 @@ check_comment (const char *text, guint index, GError **error)
   if (strlen (text) > 65536 || !g_utf8_validate (text, -1, NULL))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "stated value %u: comment: not UTF-8 text of at most 65536 bytes", index);
+                   BW_ ("stated value %u: comment: not UTF-8 text of at most 65536 bytes"), index);
       return FALSE;
     }
   for (const char *c = text; *c; c++)
     if ((guchar) *c < 0x20 && *c != '\t' && *c != '\n' && *c != '\r')
       {
         g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                     "stated value %u: comment: holds the control character 0x%02x", index,
+                     BW_ ("stated value %u: comment: holds the control character 0x%02x"), index,
                      (guint) (guchar) *c);
         return FALSE;
       }
@@ -619,7 +620,7 @@ validate_review (const BwProject *p, GError **error)
   if (!isfinite (p->review_tolerance) || !(p->review_tolerance > 0) || p->review_tolerance > 1)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "review tolerance: must lie above 0 and at most 1 (100 %%) (got %g)",
+                   BW_ ("review tolerance: must lie above 0 and at most 1 (100 %%) (got %g)"),
                    p->review_tolerance);
       return FALSE;
     }
@@ -629,19 +630,19 @@ validate_review (const BwProject *p, GError **error)
       if (s->element == NULL || s->element[0] == '\0')
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "stated value %u: element: empty", i + 1);
+                       BW_ ("stated value %u: element: empty"), i + 1);
           return FALSE;
         }
       if ((guint) s->quantity >= BW_N_QUANTITIES || (guint) s->which > BW_STATED_MINIMUM)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "stated value %u (%s): quantity: not one Basinwright computes", i + 1, s->element);
+                       BW_ ("stated value %u (%s): quantity: not one Basinwright computes"), i + 1, s->element);
           return FALSE;
         }
       if (!isfinite (s->value))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "stated value %u (%s %s): value: not a finite number", i + 1, s->element,
+                       BW_ ("stated value %u (%s %s): value: not a finite number"), i + 1, s->element,
                        bw_quantity_name (s->quantity));
           return FALSE;
         }
@@ -663,7 +664,7 @@ validate_column_tests (const BwProject *p, GError **error)
       if (r->id == NULL || r->id[0] == '\0' || !g_hash_table_add (ids, r->id))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "column test id: '%s' is missing or used twice", r->id ? r->id : "");
+                       BW_ ("column test id: '%s' is missing or used twice"), r->id ? r->id : "");
           return FALSE;
         }
       if (!bw_column_test_record_column (r, &col, error))
@@ -679,9 +680,9 @@ validate_column_tests (const BwProject *p, GError **error)
           if (u->type != BW_PROCESS_RECTANGULAR_BASIN && u->type != BW_PROCESS_CIRCULAR_CLARIFIER)
             {
               g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                           "column test %s: applies to: '%s' is a %s, not a settling basin "
-                           "(a rectangular basin or circular clarifier)", r->id, uid,
-                           bw_process_type_label (u->type));
+                           BW_ ("column test %s: applies to: '%s' is a %s, not a settling basin "
+                           "(a rectangular basin or circular clarifier)"), r->id, uid,
+                           BW_ (bw_process_type_label (u->type)));
               return FALSE;
             }
         }
@@ -712,13 +713,13 @@ bw_project_validate (const BwProject *p, GError **error)
   if (!((b->flows_given >> BW_FLOW_MAXIMUM_DAY) & 1))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "maximum-day flow: the design basis needs it");
+                   BW_ ("maximum-day flow: the design basis needs it"));
       return FALSE;
     }
   for (int f = 0; f < BW_N_FLOW_KINDS; f++)
     if ((b->flows_given >> f) & 1)
       {
-        g_autofree char *field = g_strdup_printf ("%s flow", bw_flow_kind_label ((BwFlowKind) f));
+        g_autofree char *field = g_strdup_printf (BW_ ("%s flow"), BW_ (bw_flow_kind_label ((BwFlowKind) f)));
         if (!bw_check_positive (b->flow_m3_s[f], field, error)
             || !bw_check_range (b->flow_m3_s[f], 0, 1000, field, "m³/s", error))
           return FALSE;
@@ -729,8 +730,8 @@ bw_project_validate (const BwProject *p, GError **error)
         if (b->flow_m3_s[order[i]] < last)
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                         "%s flow: it is below a flow listed before it (minimum <= average day <= "
-                         "maximum day <= peak hour)", bw_flow_kind_label (order[i]));
+                         BW_ ("%s flow: it is below a flow listed before it (minimum <= average day <= "
+                         "maximum day <= peak hour)"), BW_ (bw_flow_kind_label (order[i])));
             return FALSE;
           }
         last = b->flow_m3_s[order[i]];
@@ -743,48 +744,48 @@ bw_project_validate (const BwProject *p, GError **error)
       if (b->temperature_K[t] < BW_WATER_T_MIN_K - 1e-9 || b->temperature_K[t] > BW_WATER_T_MAX_K + 1e-9)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "%s: %.2f °C is outside 0 to 40 °C", field, b->temperature_K[t] - 273.15);
+                       BW_ ("%s: %.2f °C is outside 0 to 40 °C"), field, b->temperature_K[t] - 273.15);
           return FALSE;
         }
     }
   if (b->temperature_K[BW_TEMP_COLDEST] > b->temperature_K[BW_TEMP_WARMEST])
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "coldest temperature: it is above the warmest");
+                   BW_ ("coldest temperature: it is above the warmest"));
       return FALSE;
     }
-  if (!bw_check_nonnegative (b->turbidity_NTU, "raw-water turbidity", error)
-      || !bw_check_nonnegative (b->alkalinity_kg_m3, "raw-water alkalinity", error)
-      || !bw_check_range (b->ph, 0, 14, "raw-water pH", "", error))
+  if (!bw_check_nonnegative (b->turbidity_NTU, BW_ ("raw-water turbidity"), error)
+      || !bw_check_nonnegative (b->alkalinity_kg_m3, BW_ ("raw-water alkalinity"), error)
+      || !bw_check_range (b->ph, 0, 14, BW_ ("raw-water pH"), "", error))
     return FALSE;
   if (p->chemistry.enabled)
     {
       const BwChemistryBasis *c = &p->chemistry;
       BwCoagulant co;
-      if (!bw_check_range (c->dose_min_kg_m3, 0, 1, "minimum dose", "kg/m³", error)
-          || !bw_check_range (c->dose_design_kg_m3, 0, 1, "design dose", "kg/m³", error)
-          || !bw_check_range (c->dose_max_kg_m3, 0, 1, "maximum dose", "kg/m³", error)
-          || !bw_check_range (c->ss_factor, 0, 10, "suspended solids factor", "mg/L per NTU", error)
-          || !bw_check_range (c->residual_target_kg_m3, 0, 2, "residual alkalinity target", "kg/m³", error)
-          || !check_optional (c->stock_fraction, 1e-4, 1, "stock solution strength", "g/g",
+      if (!bw_check_range (c->dose_min_kg_m3, 0, 1, BW_ ("minimum dose"), "kg/m³", error)
+          || !bw_check_range (c->dose_design_kg_m3, 0, 1, BW_ ("design dose"), "kg/m³", error)
+          || !bw_check_range (c->dose_max_kg_m3, 0, 1, BW_ ("maximum dose"), "kg/m³", error)
+          || !bw_check_range (c->ss_factor, 0, 10, BW_ ("suspended solids factor"), "mg/L per NTU", error)
+          || !bw_check_range (c->residual_target_kg_m3, 0, 2, BW_ ("residual alkalinity target"), "kg/m³", error)
+          || !check_optional (c->stock_fraction, 1e-4, 1, BW_ ("stock solution strength"), "g/g",
                               error)
-          || !check_optional (c->stock_density_kg_m3, 500, 3000, "stock solution density",
+          || !check_optional (c->stock_density_kg_m3, 500, 3000, BW_ ("stock solution density"),
                               "kg/m³", error)
-          || !check_optional (c->sludge_solids_fraction, 1e-4, 0.6, "sludge solids content", "g/g",
+          || !check_optional (c->sludge_solids_fraction, 1e-4, 0.6, BW_ ("sludge solids content"), "g/g",
                               error)
-          || !check_optional (c->target_NTU, 0, 1e4, "target settled turbidity", "NTU", error)
+          || !check_optional (c->target_NTU, 0, 1e4, BW_ ("target settled turbidity"), "NTU", error)
           || !bw_project_coagulant (p, &co, error))
         return FALSE;
       if ((guint) c->alkali >= BW_N_ALKALIS)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "alkali supplement: must be lime or soda ash");
+                       BW_ ("alkali supplement: must be lime or soda ash"));
           return FALSE;
         }
       if (c->dose_min_kg_m3 > c->dose_design_kg_m3 || c->dose_design_kg_m3 > c->dose_max_kg_m3)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "design dose: the doses must run minimum <= design <= maximum");
+                       BW_ ("design dose: the doses must run minimum <= design <= maximum"));
           return FALSE;
         }
       if (c->jar_test)
@@ -795,7 +796,7 @@ bw_project_validate (const BwProject *p, GError **error)
           if (!found)
             {
               g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                           "jar test: the chemistry names '%s', which the project does not hold",
+                           BW_ ("jar test: the chemistry names '%s', which the project does not hold"),
                            c->jar_test);
               return FALSE;
             }
@@ -808,13 +809,13 @@ bw_project_validate (const BwProject *p, GError **error)
       g_autoptr (GError) local = NULL;
       if (!bw_jar_series_prepare (&s, &local))
         {
-          g_set_error (error, BW_ENGINE_ERROR, local->code, "jar test %s: %s", r->id, local->message);
+          g_set_error (error, BW_ENGINE_ERROR, local->code, BW_ ("jar test %s: %s"), r->id, local->message);
           return FALSE;
         }
     }
   if (p->trains->len == 0)
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "trains: the plant has none");
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("trains: the plant has none"));
       return FALSE;
     }
   for (guint i = 0; i < p->trains->len; i++)
@@ -823,7 +824,7 @@ bw_project_validate (const BwProject *p, GError **error)
       if (t->id == NULL || !g_hash_table_add (train_ids, t->id))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "train id: '%s' is missing or used twice", t->id ? t->id : "");
+                       BW_ ("train id: '%s' is missing or used twice"), t->id ? t->id : "");
           return FALSE;
         }
       for (guint k = 0; k < t->units->len; k++)
@@ -837,8 +838,8 @@ bw_project_validate (const BwProject *p, GError **error)
         {
           g_autofree char *label = bw_load_case_label (c);
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "load case %s: the design basis has no %s flow", label,
-                       bw_flow_kind_label (c->flow));
+                       BW_ ("load case %s: the design basis has no %s flow"), label,
+                       BW_ (bw_flow_kind_label (c->flow)));
           return FALSE;
         }
     }

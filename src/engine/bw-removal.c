@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Largest settling velocity accepted, m/s (a 5 mm grain of SG 3 settles at about 0.6 m/s). */
 #define MAX_SETTLING_VELOCITY_M_S 100.0
@@ -30,17 +31,17 @@ check_plain_range (double value, double lo, double hi, const char *field, GError
   if (value >= lo && value <= hi)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: %g is outside the accepted range %g to %g", field, value, lo, hi);
+               BW_ ("%s: %g is outside the accepted range %g to %g"), field, value, lo, hi);
   return FALSE;
 }
 
 static gboolean
 check_velocities (double vs_m_s, double v0_m_s, GError **error)
 {
-  return bw_check_nonnegative (vs_m_s, "settling velocity", error)
-         && bw_check_range (vs_m_s, 0.0, MAX_SETTLING_VELOCITY_M_S, "settling velocity", "m/s",
+  return bw_check_nonnegative (vs_m_s, BW_ ("settling velocity"), error)
+         && bw_check_range (vs_m_s, 0.0, MAX_SETTLING_VELOCITY_M_S, BW_ ("settling velocity"), "m/s",
                             error)
-         && bw_check_positive (v0_m_s, "overflow rate", error);
+         && bw_check_positive (v0_m_s, BW_ ("overflow rate"), error);
 }
 
 /* A ratio vs / v0 that overflowed (v0 near the smallest double) stands for "very large": both
@@ -72,8 +73,8 @@ check_hazen_n (double n, GError **error)
 {
   /* Hazen's classes run from n = 1 (very poor) upward (Hazen 1904; from memory); below 1 the
    * index has no meaning in his model. */
-  return bw_check_finite (n, "Hazen n", error)
-         && check_plain_range (n, BW_HAZEN_N_MIN, BW_HAZEN_N_MAX, "Hazen n", error);
+  return bw_check_finite (n, BW_ ("Hazen n"), error)
+         && check_plain_range (n, BW_HAZEN_N_MIN, BW_HAZEN_N_MAX, BW_ ("Hazen n"), error);
 }
 
 /*
@@ -116,7 +117,7 @@ bw_removal_fraction (const BwBasinModel *model, double settling_velocity_m_s,
                                error);
     default:
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "basin model: unknown value %d", (int) model->kind);
+                   BW_ ("basin model: unknown value %d"), (int) model->kind);
       return FALSE;
     }
 }
@@ -148,7 +149,7 @@ bw_psd_check (const BwPsd *psd, GError **error)
   if (psd->n_fractions < 1 || psd->n_fractions > BW_PSD_MAX_FRACTIONS)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "fractions: %u given; 1 to %d are accepted", psd->n_fractions,
+                   BW_ ("fractions: %u given; 1 to %d are accepted"), psd->n_fractions,
                    BW_PSD_MAX_FRACTIONS);
       return FALSE;
     }
@@ -161,7 +162,7 @@ bw_psd_check (const BwPsd *psd, GError **error)
           g_set_error (error, BW_ENGINE_ERROR,
                        isfinite (f->diameter_m) ? BW_ENGINE_ERROR_OUT_OF_RANGE
                                                 : BW_ENGINE_ERROR_NOT_FINITE,
-                       "diameter: fraction %u: must be a positive finite number (got %g)", i + 1,
+                       BW_ ("diameter: fraction %u: must be a positive finite number (got %g)"), i + 1,
                        f->diameter_m);
           return FALSE;
         }
@@ -170,20 +171,20 @@ bw_psd_check (const BwPsd *psd, GError **error)
           g_set_error (error, BW_ENGINE_ERROR,
                        isfinite (f->specific_gravity) ? BW_ENGINE_ERROR_OUT_OF_RANGE
                                                       : BW_ENGINE_ERROR_NOT_FINITE,
-                       "specific gravity: fraction %u: %g is not above 1; a particle no denser "
-                       "than water does not settle", i + 1, f->specific_gravity);
+                       BW_ ("specific gravity: fraction %u: %g is not above 1; a particle no denser "
+                       "than water does not settle"), i + 1, f->specific_gravity);
           return FALSE;
         }
       if (!isfinite (f->mass_fraction))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                       "mass fraction: fraction %u is not a finite number", i + 1);
+                       BW_ ("mass fraction: fraction %u is not a finite number"), i + 1);
           return FALSE;
         }
       if (f->mass_fraction < 0.0 || f->mass_fraction > 1.0)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "mass fraction: fraction %u is %s (%g); each must lie in 0 to 1", i + 1,
+                       BW_ ("mass fraction: fraction %u is %s (%g); each must lie in 0 to 1"), i + 1,
                        f->mass_fraction < 0.0 ? "negative" : "above 1", f->mass_fraction);
           return FALSE;
         }
@@ -192,8 +193,8 @@ bw_psd_check (const BwPsd *psd, GError **error)
   if (fabs (sum - 1.0) > BW_PSD_SUM_TOLERANCE)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "mass fraction: the %u fractions sum to %.9g, not 1 (within %g); they are not "
-                   "renormalised", psd->n_fractions, sum, BW_PSD_SUM_TOLERANCE);
+                   BW_ ("mass fraction: the %u fractions sum to %.9g, not 1 (within %g); they are not "
+                   "renormalised"), psd->n_fractions, sum, BW_PSD_SUM_TOLERANCE);
       return FALSE;
     }
   return TRUE;
@@ -207,10 +208,10 @@ set_fraction_error (GError **error, const GError *inner, guint index)
   const char *colon = strstr (inner->message, ": ");
 
   if (colon != NULL)
-    g_set_error (error, inner->domain, inner->code, "%.*s: fraction %u: %s",
+    g_set_error (error, inner->domain, inner->code, BW_ ("%.*s: fraction %u: %s"),
                  (int) (colon - inner->message), inner->message, index, colon + 2);
   else
-    g_set_error (error, inner->domain, inner->code, "fraction %u: %s", index, inner->message);
+    g_set_error (error, inner->domain, inner->code, BW_ ("fraction %u: %s"), index, inner->message);
 }
 
 /* Each fraction's terminal velocity: particle density = SG x water density, in WATER, at
@@ -319,39 +320,39 @@ bw_settling_column_check (const BwSettlingColumn *c, GError **error)
   if (c->n_depths < 1 || c->n_depths > BW_COLUMN_MAX_DEPTHS)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "depths: %u sampling ports given; 1 to %d are accepted", c->n_depths,
+                   BW_ ("depths: %u sampling ports given; 1 to %d are accepted"), c->n_depths,
                    BW_COLUMN_MAX_DEPTHS);
       return FALSE;
     }
   if (c->n_times < 1 || c->n_times > BW_COLUMN_MAX_TIMES)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "times: %u sampling times given; 1 to %d are accepted", c->n_times,
+                   BW_ ("times: %u sampling times given; 1 to %d are accepted"), c->n_times,
                    BW_COLUMN_MAX_TIMES);
       return FALSE;
     }
   for (guint j = 0; j < c->n_depths; j++)
     {
-      if (!bw_check_positive (c->depth_m[j], "depths", error)
-          || !bw_check_range (c->depth_m[j], 0.0, MAX_COLUMN_DEPTH_M, "depths", "m", error))
+      if (!bw_check_positive (c->depth_m[j], BW_ ("depths"), error)
+          || !bw_check_range (c->depth_m[j], 0.0, MAX_COLUMN_DEPTH_M, BW_ ("depths"), "m", error))
         return FALSE;
       if (j > 0 && !(c->depth_m[j] > c->depth_m[j - 1]))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                       "depths: port %u at %g m is not below port %u at %g m; list the ports "
-                       "from the surface down", j + 1, c->depth_m[j], j, c->depth_m[j - 1]);
+                       BW_ ("depths: port %u at %g m is not below port %u at %g m; list the ports "
+                       "from the surface down"), j + 1, c->depth_m[j], j, c->depth_m[j - 1]);
           return FALSE;
         }
     }
   for (guint k = 0; k < c->n_times; k++)
     {
-      if (!bw_check_positive (c->time_s[k], "times", error)
-          || !bw_check_range (c->time_s[k], 0.0, MAX_COLUMN_TIME_S, "times", "s", error))
+      if (!bw_check_positive (c->time_s[k], BW_ ("times"), error)
+          || !bw_check_range (c->time_s[k], 0.0, MAX_COLUMN_TIME_S, BW_ ("times"), "s", error))
         return FALSE;
       if (k > 0 && !(c->time_s[k] > c->time_s[k - 1]))
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "times: reading %u at %g min does not follow reading %u at %g min", k + 1,
+                       BW_ ("times: reading %u at %g min does not follow reading %u at %g min"), k + 1,
                        c->time_s[k] / 60.0, k, c->time_s[k - 1] / 60.0);
           return FALSE;
         }
@@ -361,12 +362,12 @@ bw_settling_column_check (const BwSettlingColumn *c, GError **error)
       {
         const double v = c->removal[j][k];
 
-        if (!bw_check_finite (v, "removal", error))
+        if (!bw_check_finite (v, BW_ ("removal"), error))
           return FALSE;
         if (v < 0.0 || v > 1.0)
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                         "removal: %g at depth %g m and %g min is outside 0 to 1", v,
+                         BW_ ("removal: %g at depth %g m and %g min is outside 0 to 1"), v,
                          c->depth_m[j], c->time_s[k] / 60.0);
             return FALSE;
           }
@@ -376,8 +377,8 @@ bw_settling_column_check (const BwSettlingColumn *c, GError **error)
         if (k > 0 && v < c->removal[j][k - 1])
           {
             g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                         "removal: at depth %g m it falls from %g %% at %g min to %g %% at %g "
-                         "min; column readings cannot fall with time", c->depth_m[j],
+                         BW_ ("removal: at depth %g m it falls from %g %% at %g min to %g %% at %g "
+                         "min; column readings cannot fall with time"), c->depth_m[j],
                          100.0 * c->removal[j][k - 1], c->time_s[k - 1] / 60.0, 100.0 * v,
                          c->time_s[k] / 60.0);
             return FALSE;
@@ -392,39 +393,39 @@ check_type2_options (const BwSettlingColumn *c, const BwType2Options *o, double 
 {
   const double deepest = c->depth_m[c->n_depths - 1];
 
-  if (!bw_check_nonnegative (o->depth_m, "column depth", error))
+  if (!bw_check_nonnegative (o->depth_m, BW_ ("column depth"), error))
     return FALSE;
   if (o->depth_m > deepest)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "column depth: %g m is below the deepest port (%g m); the column has no "
-                   "readings there", o->depth_m, deepest);
+                   BW_ ("column depth: %g m is below the deepest port (%g m); the column has no "
+                   "readings there"), o->depth_m, deepest);
       return FALSE;
     }
   if (o->surface != BW_COLUMN_SURFACE_HOLD && o->surface != BW_COLUMN_SURFACE_FULL)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "surface: unknown value %d", (int) o->surface);
+                   BW_ ("surface: unknown value %d"), (int) o->surface);
       return FALSE;
     }
   /* Scale-up only ever makes the design more cautious than the column: the overflow rate is
    * divided by a factor of 1 or more, the detention time multiplied by one. */
-  if (!bw_check_finite (o->overflow_scale, "overflow scale-up", error)
-      || !bw_check_finite (o->detention_scale, "detention scale-up", error))
+  if (!bw_check_finite (o->overflow_scale, BW_ ("overflow scale-up"), error)
+      || !bw_check_finite (o->detention_scale, BW_ ("detention scale-up"), error))
     return FALSE;
   if (o->overflow_scale < 1.0 || o->overflow_scale > MAX_SCALE_FACTOR)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "overflow scale-up: %g is outside 1 to %g; it divides the column overflow "
-                   "rate (a multiplier such as 0.65 is the divisor 1/0.65 = 1.54)",
+                   BW_ ("overflow scale-up: %g is outside 1 to %g; it divides the column overflow "
+                   "rate (a multiplier such as 0.65 is the divisor 1/0.65 = 1.54)"),
                    o->overflow_scale, MAX_SCALE_FACTOR);
       return FALSE;
     }
   if (o->detention_scale < 1.0 || o->detention_scale > MAX_SCALE_FACTOR)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "detention scale-up: %g is outside 1 to %g; it multiplies the column "
-                   "detention time", o->detention_scale, MAX_SCALE_FACTOR);
+                   BW_ ("detention scale-up: %g is outside 1 to %g; it multiplies the column "
+                   "detention time"), o->detention_scale, MAX_SCALE_FACTOR);
       return FALSE;
     }
   *depth_m = o->depth_m > 0.0 ? o->depth_m : deepest;
@@ -518,13 +519,13 @@ bw_type2_removal_at_time (const BwSettlingColumn *c, const BwType2Options *o, do
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!bw_settling_column_check (c, error) || !check_type2_options (c, o, &depth_m, error)
-      || !bw_check_positive (time_s, "detention time", error))
+      || !bw_check_positive (time_s, BW_ ("detention time"), error))
     return FALSE;
   last = c->time_s[c->n_times - 1];
   if (time_s > last)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "detention time: %g min is beyond the last column reading (%g min)",
+                   BW_ ("detention time: %g min is beyond the last column reading (%g min)"),
                    time_s / 60.0, last / 60.0);
       return FALSE;
     }
@@ -544,15 +545,15 @@ bw_type2_removal_at_overflow (const BwSettlingColumn *c, const BwType2Options *o
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!bw_settling_column_check (c, error) || !check_type2_options (c, o, &depth_m, error)
-      || !bw_check_positive (overflow_rate_m_s, "overflow rate", error))
+      || !bw_check_positive (overflow_rate_m_s, BW_ ("overflow rate"), error))
     return FALSE;
   t = depth_m / overflow_rate_m_s;
   last = c->time_s[c->n_times - 1];
   if (!(t <= last))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "overflow rate: %g m/h over %g m needs a column time of %g min, beyond the "
-                   "last reading (%g min)", overflow_rate_m_s * 3600.0, depth_m, t / 60.0,
+                   BW_ ("overflow rate: %g m/h over %g m needs a column time of %g min, beyond the "
+                   "last reading (%g min)"), overflow_rate_m_s * 3600.0, depth_m, t / 60.0,
                    last / 60.0);
       return FALSE;
     }
@@ -573,8 +574,8 @@ bw_type2_time_for_removal (const BwSettlingColumn *c, const BwType2Options *o,
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!bw_settling_column_check (c, error) || !check_type2_options (c, o, &depth_m, error)
-      || !bw_check_positive (target_removal, "target removal", error)
-      || !check_plain_range (target_removal, 0.0, 1.0, "target removal", error))
+      || !bw_check_positive (target_removal, BW_ ("target removal"), error)
+      || !check_plain_range (target_removal, 0.0, 1.0, BW_ ("target removal"), error))
     return FALSE;
 
   for (guint j = 0; j < c->n_depths; j++)
@@ -584,8 +585,8 @@ bw_type2_time_for_removal (const BwSettlingColumn *c, const BwType2Options *o,
   if (r_prev >= target_removal)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "target removal: %g %% is credited at time zero by the assumed complete "
-                   "removal at the surface; choose a larger target", 100.0 * target_removal);
+                   BW_ ("target removal: %g %% is credited at time zero by the assumed complete "
+                   "removal at the surface; choose a larger target"), 100.0 * target_removal);
       return FALSE;
     }
   for (guint k = 0; k < c->n_times; k++)
@@ -605,8 +606,8 @@ bw_type2_time_for_removal (const BwSettlingColumn *c, const BwType2Options *o,
       r_prev = r;
     }
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "target removal: %g %% is not reached by the last column reading (%.4g %% at %g "
-               "min)", 100.0 * target_removal, 100.0 * r_prev, t_prev / 60.0);
+               BW_ ("target removal: %g %% is not reached by the last column reading (%.4g %% at %g "
+               "min)"), 100.0 * target_removal, 100.0 * r_prev, t_prev / 60.0);
   return FALSE;
 }
 
@@ -623,33 +624,33 @@ bw_isoremoval_sum (guint n_bands, const double *levels, const double *mid_depths
   if (n_bands < 1 || n_bands > MAX_ISO_BANDS)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "bands: %u given; 1 to %u are accepted", n_bands, MAX_ISO_BANDS);
+                   BW_ ("bands: %u given; 1 to %u are accepted"), n_bands, MAX_ISO_BANDS);
       return FALSE;
     }
-  if (!bw_check_positive (depth_m, "column depth", error)
-      || !bw_check_range (depth_m, 0.0, MAX_COLUMN_DEPTH_M, "column depth", "m", error))
+  if (!bw_check_positive (depth_m, BW_ ("column depth"), error)
+      || !bw_check_range (depth_m, 0.0, MAX_COLUMN_DEPTH_M, BW_ ("column depth"), "m", error))
     return FALSE;
   for (guint i = 0; i <= n_bands; i++)
     {
-      if (!check_plain_range (levels[i], 0.0, 1.0, "levels", error))
+      if (!check_plain_range (levels[i], 0.0, 1.0, BW_ ("levels"), error))
         return FALSE;
       if (i > 0 && levels[i] < levels[i - 1])
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "levels: curve %u (%g) is below curve %u (%g); list them rising", i + 1,
+                       BW_ ("levels: curve %u (%g) is below curve %u (%g); list them rising"), i + 1,
                        levels[i], i, levels[i - 1]);
           return FALSE;
         }
     }
   for (guint i = 0; i < n_bands; i++)
     {
-      if (!bw_check_range (mid_depths_m[i], 0.0, depth_m, "mid depths", "m", error))
+      if (!bw_check_range (mid_depths_m[i], 0.0, depth_m, BW_ ("mid depths"), "m", error))
         return FALSE;
       if (i > 0 && mid_depths_m[i] > mid_depths_m[i - 1])
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                       "mid depths: band %u at %g m lies below band %u at %g m; higher removal "
-                       "is read nearer the surface", i + 1, mid_depths_m[i], i,
+                       BW_ ("mid depths: band %u at %g m lies below band %u at %g m; higher removal "
+                       "is read nearer the surface"), i + 1, mid_depths_m[i], i,
                        mid_depths_m[i - 1]);
           return FALSE;
         }

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Accepted magnitudes. They are generous (a bench model to the largest plant), and they keep every
  * derived quantity finite, so an error can name the input at fault instead of a result. */
@@ -37,7 +38,7 @@ check_plain_range (double value, double lo, double hi, const char *field, GError
   if (value >= lo && value <= hi)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: %g is outside the accepted range %g to %g", field, value, lo, hi);
+               BW_ ("%s: %g is outside the accepted range %g to %g"), field, value, lo, hi);
   return FALSE;
 }
 
@@ -60,8 +61,8 @@ check_optional_length (double value_m, const char *field, GError **error)
 static gboolean
 check_flow (double flow_m3_s, GError **error)
 {
-  return bw_check_positive (flow_m3_s, "flow", error)
-         && bw_check_range (flow_m3_s, MIN_FLOW_M3_S, MAX_FLOW_M3_S, "flow", "m3/s", error);
+  return bw_check_positive (flow_m3_s, BW_ ("flow"), error)
+         && bw_check_range (flow_m3_s, MIN_FLOW_M3_S, MAX_FLOW_M3_S, BW_ ("flow"), "m3/s", error);
 }
 
 static gboolean
@@ -70,7 +71,7 @@ check_count (guint n, guint max, const char *field, const char *what, GError **e
   if (n >= 1 && n <= max)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-               "%s: %u %s is outside the accepted 1 to %u", field, n, what, max);
+               BW_ ("%s: %u %s is outside the accepted 1 to %u"), field, n, what, max);
   return FALSE;
 }
 
@@ -80,8 +81,8 @@ check_water (const BwWater *water, GError **error)
   if (isfinite (water->kinematic_viscosity_m2_s) && water->kinematic_viscosity_m2_s > 0.0)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-               "water: the kinematic viscosity is not a positive finite number (use "
-               "bw_water_properties)");
+               BW_ ("water: the kinematic viscosity is not a positive finite number (use "
+               "bw_water_properties)"));
   return FALSE;
 }
 
@@ -94,7 +95,7 @@ check_results_finite (const double *values, gsize n, const char *field, GError *
     if (!isfinite (values[i]))
       {
         g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                     "%s: the inputs give a result that is not a finite number", field);
+                     BW_ ("%s: the inputs give a result that is not a finite number"), field);
         return FALSE;
       }
   return TRUE;
@@ -106,13 +107,13 @@ check_results_finite (const double *values, gsize n, const char *field, GError *
 static gboolean
 check_angle (double angle_rad, GError **error)
 {
-  if (!bw_check_finite (angle_rad, "angle", error))
+  if (!bw_check_finite (angle_rad, BW_ ("angle"), error))
     return FALSE;
   if (angle_rad > 0.0 && angle_rad < G_PI / 2.0)
     return TRUE;
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-               "angle: %g° is not an incline; it must lie strictly between 0° and 90° from the "
-               "horizontal", angle_rad * RAD_TO_DEG);
+               BW_ ("angle: %g° is not an incline; it must lie strictly between 0° and 90° from the "
+               "horizontal"), angle_rad * RAD_TO_DEG);
   return FALSE;
 }
 
@@ -131,19 +132,19 @@ bw_scour_particle_init (BwScourParticle *p, double diameter_m, double specific_g
 static gboolean
 check_scour_particle (const BwScourParticle *p, GError **error)
 {
-  if (!bw_check_positive (p->diameter_m, "diameter", error)
-      || !bw_check_range (p->diameter_m, 0.0, MAX_SCOUR_DIAMETER_M, "diameter", "m", error)
-      || !bw_check_finite (p->specific_gravity, "specific gravity", error)
-      || !bw_check_positive (p->cohesion_k, "cohesion", error)
-      || !check_plain_range (p->cohesion_k, 0.0, 1.0, "cohesion", error)
-      || !bw_check_positive (p->friction_f, "friction factor", error)
-      || !check_plain_range (p->friction_f, 0.0, 1.0, "friction factor", error))
+  if (!bw_check_positive (p->diameter_m, BW_ ("diameter"), error)
+      || !bw_check_range (p->diameter_m, 0.0, MAX_SCOUR_DIAMETER_M, BW_ ("diameter"), "m", error)
+      || !bw_check_finite (p->specific_gravity, BW_ ("specific gravity"), error)
+      || !bw_check_positive (p->cohesion_k, BW_ ("cohesion"), error)
+      || !check_plain_range (p->cohesion_k, 0.0, 1.0, BW_ ("cohesion"), error)
+      || !bw_check_positive (p->friction_f, BW_ ("friction factor"), error)
+      || !check_plain_range (p->friction_f, 0.0, 1.0, BW_ ("friction factor"), error))
     return FALSE;
   if (!(p->specific_gravity > 1.0) || p->specific_gravity > MAX_SPECIFIC_GRAVITY)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "specific gravity: %g is outside the accepted range above 1 up to %g (a "
-                   "particle no denser than water is never on the bed)", p->specific_gravity,
+                   BW_ ("specific gravity: %g is outside the accepted range above 1 up to %g (a "
+                   "particle no denser than water is never on the bed)"), p->specific_gravity,
                    MAX_SPECIFIC_GRAVITY);
       return FALSE;
     }
@@ -166,12 +167,12 @@ bw_scour_velocity (const BwScourParticle *p, double gravity_m_s2, double *out_m_
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_scour_particle (p, error)
-      || !bw_check_positive (gravity_m_s2, "gravity", error)
-      || !bw_check_range (gravity_m_s2, 0.0, 100.0, "gravity", "m/s2", error))
+      || !bw_check_positive (gravity_m_s2, BW_ ("gravity"), error)
+      || !bw_check_range (gravity_m_s2, 0.0, 100.0, BW_ ("gravity"), "m/s2", error))
     return FALSE;
   v = sqrt (8.0 * p->cohesion_k * (p->specific_gravity - 1.0) * gravity_m_s2 * p->diameter_m
             / p->friction_f);
-  if (!check_results_finite (&v, 1, "diameter", error))
+  if (!check_results_finite (&v, 1, BW_ ("diameter"), error))
     return FALSE;
   *out_m_s = v;
   return TRUE;
@@ -258,16 +259,16 @@ bw_rect_basin_evaluate (const BwRectBasin *b, double flow_m3_s, const BwWater *w
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_flow (flow_m3_s, error)
-      || !check_count (b->n_basins, MAX_BASINS, "basins", "basins in service", error)
-      || !check_length (b->length_m, "length", error)
-      || !check_length (b->width_m, "width", error)
-      || !check_length (b->depth_m, "depth", error)
-      || !check_optional_length (b->weir_length_m, "weir length", error)
+      || !check_count (b->n_basins, MAX_BASINS, BW_ ("basins"), BW_ ("basins in service"), error)
+      || !check_length (b->length_m, BW_ ("length"), error)
+      || !check_length (b->width_m, BW_ ("width"), error)
+      || !check_length (b->depth_m, BW_ ("depth"), error)
+      || !check_optional_length (b->weir_length_m, BW_ ("weir length"), error)
       || !check_water (water, error))
     return FALSE;
   if (!inlet_is_valid (b->inlet))
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "inlet: unknown value %d",
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("inlet: unknown value %d"),
                    (int) b->inlet);
       return FALSE;
     }
@@ -280,7 +281,7 @@ bw_rect_basin_evaluate (const BwRectBasin *b, double flow_m3_s, const BwWater *w
                            r.horizontal_velocity_m_s, r.weir_loading_m2_s, r.length_width_ratio,
                            r.width_depth_ratio, r.hydraulic_radius_m, r.reynolds, r.froude,
                            r.scour_margin };
-    if (!check_results_finite (all, G_N_ELEMENTS (all), "flow", error))
+    if (!check_results_finite (all, G_N_ELEMENTS (all), BW_ ("flow"), error))
       return FALSE;
   }
   *out = r;
@@ -301,19 +302,19 @@ bw_launder_weir_length (guint n_launders, double launder_length_m, gboolean doub
   if (n_launders > MAX_BASINS)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "launders: %u is more than the accepted %u", n_launders, MAX_BASINS);
+                   BW_ ("launders: %u is more than the accepted %u"), n_launders, MAX_BASINS);
       return FALSE;
     }
-  if (n_launders > 0 && !check_length (launder_length_m, "launder length", error))
+  if (n_launders > 0 && !check_length (launder_length_m, BW_ ("launder length"), error))
     return FALSE;
-  if (!check_optional_length (end_weir_m, "end weir length", error))
+  if (!check_optional_length (end_weir_m, BW_ ("end weir length"), error))
     return FALSE;
   total = (n_launders > 0 ? n_launders * launder_length_m * (double_sided ? 2.0 : 1.0) : 0.0)
           + end_weir_m;
   if (!(total > 0.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "launders: no launder and no end weir gives no weir length");
+                   BW_ ("launders: no launder and no end weir gives no weir length"));
       return FALSE;
     }
   *out_m = total;
@@ -370,67 +371,71 @@ check_clarifier_geometry (const BwClarifier *c, GError **error)
   const double r_tank = c->diameter_m / 2.0;
   const double r_well = c->feed_well_diameter_m / 2.0;
 
-  if (!check_length (c->diameter_m, "diameter", error)
-      || !check_length (c->depth_m, "depth", error)
-      || !check_count (c->n_clarifiers, MAX_BASINS, "clarifiers", "clarifiers in service", error)
-      || !check_optional_length (c->feed_well_diameter_m, "feed well diameter", error)
-      || !check_optional_length (c->feed_well_depth_m, "feed well depth", error))
+  if (!check_length (c->diameter_m, BW_ ("diameter"), error)
+      || !check_length (c->depth_m, BW_ ("depth"), error)
+      || !check_count (c->n_clarifiers, MAX_BASINS, BW_ ("clarifiers"), BW_ ("clarifiers in service"), error)
+      || !check_optional_length (c->feed_well_diameter_m, BW_ ("feed well diameter"), error)
+      || !check_optional_length (c->feed_well_depth_m, BW_ ("feed well depth"), error))
     return FALSE;
   if (c->feed_well_diameter_m >= c->diameter_m)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "feed well diameter: %g m is not smaller than the clarifier's diameter (%g m)",
+                   BW_ ("feed well diameter: %g m is not smaller than the clarifier's diameter (%g m)"),
                    c->feed_well_diameter_m, c->diameter_m);
       return FALSE;
     }
   if (c->feed_well_depth_m > 0.0 && c->feed_well_diameter_m == 0.0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "feed well depth: given for a clarifier without a feed well (give its "
-                   "diameter)");
+                   BW_ ("feed well depth: given for a clarifier without a feed well (give its "
+                   "diameter)"));
       return FALSE;
     }
   if (c->feed_well_depth_m >= c->depth_m)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                   "feed well depth: a %g m skirt reaches the floor (side water depth %g m)",
+                   BW_ ("feed well depth: a %g m skirt reaches the floor (side water depth %g m)"),
                    c->feed_well_depth_m, c->depth_m);
       return FALSE;
     }
   switch (c->launder)
     {
     case BW_LAUNDER_PERIPHERAL:
-      if (!bw_check_nonnegative (c->launder_inset_m, "launder inset", error))
+      if (!bw_check_nonnegative (c->launder_inset_m, BW_ ("launder inset"), error))
         return FALSE;
       if (r_tank - c->launder_inset_m <= r_well)
         {
-          g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                       "launder inset: %g m from the wall puts the weir at or inside the %s "
-                       "(tank radius %g m)", c->launder_inset_m,
-                       r_well > 0.0 ? "feed well" : "centre", r_tank);
+          if (r_well > 0.0)
+            g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
+                         BW_ ("launder inset: %g m from the wall puts the weir at or inside the "
+                              "feed well (tank radius %g m)"), c->launder_inset_m, r_tank);
+          else
+            g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
+                         BW_ ("launder inset: %g m from the wall puts the weir at or past the "
+                              "centre (tank radius %g m)"), c->launder_inset_m, r_tank);
           return FALSE;
         }
       break;
     case BW_LAUNDER_INBOARD:
-      if (!bw_check_positive (c->launder_radius_m, "launder radius", error))
+      if (!bw_check_positive (c->launder_radius_m, BW_ ("launder radius"), error))
         return FALSE;
       if (c->launder_radius_m >= r_tank)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                       "launder radius: %g m puts the launder outside the tank (radius %g m)",
+                       BW_ ("launder radius: %g m puts the launder outside the tank (radius %g m)"),
                        c->launder_radius_m, r_tank);
           return FALSE;
         }
       if (c->launder_radius_m <= r_well)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_GEOMETRY,
-                       "launder radius: %g m puts the launder inside the feed well (radius %g m)",
+                       BW_ ("launder radius: %g m puts the launder inside the feed well (radius %g m)"),
                        c->launder_radius_m, r_well);
           return FALSE;
         }
       break;
     default:
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "launder: unknown value %d",
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("launder: unknown value %d"),
                    (int) c->launder);
       return FALSE;
     }
@@ -487,7 +492,7 @@ bw_clarifier_evaluate (const BwClarifier *c, double flow_m3_s, BwClarifierResult
     const double all[] = { r.gross_area_m2, r.surface_area_m2, r.volume_m3, r.overflow_rate_m_s,
                            r.gross_overflow_rate_m_s, r.detention_s, r.weir_length_m,
                            r.weir_loading_m2_s, r.skirt_velocity_m_s };
-    if (!check_results_finite (all, G_N_ELEMENTS (all), "flow", error))
+    if (!check_results_finite (all, G_N_ELEMENTS (all), BW_ ("flow"), error))
       return FALSE;
   }
   *out = r;
@@ -560,7 +565,7 @@ check_shape (BwSettlerShape shape, GError **error)
 {
   if (shape_is_valid (shape))
     return TRUE;
-  g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "shape: unknown value %d",
+  g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("shape: unknown value %d"),
                (int) shape);
   return FALSE;
 }
@@ -583,11 +588,11 @@ bw_yao_critical_velocity (BwSettlerShape shape, double channel_velocity_m_s, dou
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_shape (shape, error)
-      || !bw_check_positive (channel_velocity_m_s, "channel velocity", error)
-      || !bw_check_range (channel_velocity_m_s, 0.0, 10.0, "channel velocity", "m/s", error)
+      || !bw_check_positive (channel_velocity_m_s, BW_ ("channel velocity"), error)
+      || !bw_check_range (channel_velocity_m_s, 0.0, 10.0, BW_ ("channel velocity"), "m/s", error)
       || !check_angle (angle_rad, error)
-      || !check_length (spacing_m, "spacing", error)
-      || !check_length (length_m, "length", error))
+      || !check_length (spacing_m, BW_ ("spacing"), error)
+      || !check_length (length_m, BW_ ("length"), error))
     return FALSE;
 
   r.shape_factor = bw_settler_shape_factor (shape);
@@ -596,7 +601,7 @@ bw_yao_critical_velocity (BwSettlerShape shape, double channel_velocity_m_s, dou
                             / (sin (angle_rad) + r.relative_length * cos (angle_rad));
   {
     const double all[] = { r.relative_length, r.critical_velocity_m_s };
-    if (!check_results_finite (all, G_N_ELEMENTS (all), "channel velocity", error))
+    if (!check_results_finite (all, G_N_ELEMENTS (all), BW_ ("channel velocity"), error))
       return FALSE;
   }
   *out = r;
@@ -613,11 +618,11 @@ bw_settler_hydraulic_radius (BwSettlerShape shape, double spacing_m, double plat
   g_return_val_if_fail (out_m != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  if (!check_shape (shape, error) || !check_length (spacing_m, "spacing", error))
+  if (!check_shape (shape, error) || !check_length (spacing_m, BW_ ("spacing"), error))
     return FALSE;
   if (shape == BW_SETTLER_PLATES)
     {
-      if (!check_optional_length (plate_width_m, "plate width", error))
+      if (!check_optional_length (plate_width_m, BW_ ("plate width"), error))
         return FALSE;
       *out_m = plate_width_m > 0.0
                  ? spacing_m * plate_width_m / (2.0 * (spacing_m + plate_width_m))
@@ -665,31 +670,31 @@ static gboolean
 check_settler (const BwSettler *s, GError **error)
 {
   if (!check_shape (s->shape, error) || !check_angle (s->angle_rad, error)
-      || !check_length (s->spacing_m, "spacing", error)
-      || !check_length (s->length_m, "length", error)
-      || !check_count (s->n_basins, MAX_BASINS, "basins", "basins in service", error))
+      || !check_length (s->spacing_m, BW_ ("spacing"), error)
+      || !check_length (s->length_m, BW_ ("length"), error)
+      || !check_count (s->n_basins, MAX_BASINS, BW_ ("basins"), BW_ ("basins in service"), error))
     return FALSE;
   if (s->shape == BW_SETTLER_PLATES)
     {
-      if (!check_optional_length (s->plate_width_m, "plate width", error))
+      if (!check_optional_length (s->plate_width_m, BW_ ("plate width"), error))
         return FALSE;
       if (s->count > 0 && s->plate_width_m == 0.0)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                       "plate width: needed when plates are counted (got 0)");
+                       BW_ ("plate width: needed when plates are counted (got 0)"));
           return FALSE;
         }
     }
   if (s->count > MAX_SETTLER_COUNT)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "count: %u is more than the accepted %u", s->count, MAX_SETTLER_COUNT);
+                   BW_ ("count: %u is more than the accepted %u"), s->count, MAX_SETTLER_COUNT);
       return FALSE;
     }
   if (s->count == 0)
     {
-      if (!bw_check_positive (s->module_plan_area_m2, "module plan area", error)
-          || !bw_check_range (s->module_plan_area_m2, 0.0, MAX_AREA_M2, "module plan area", "m2",
+      if (!bw_check_positive (s->module_plan_area_m2, BW_ ("module plan area"), error)
+          || !bw_check_range (s->module_plan_area_m2, 0.0, MAX_AREA_M2, BW_ ("module plan area"), "m2",
                               error))
         return FALSE;
     }
@@ -749,7 +754,7 @@ bw_settler_evaluate (const BwSettler *s, double flow_m3_s, const BwWater *water,
                                  s->length_m, &yao, error))
     {
       /* Only the channel velocity can fail here (the geometry passed already): say why. */
-      g_prefix_error (error, "flow: %g m3/s per basin is too fast for these channels; ", q);
+      g_prefix_error (error, BW_ ("flow: %g m3/s per basin is too fast for these channels; "), q);
       return FALSE;
     }
   r.shape_factor = yao.shape_factor;
@@ -768,7 +773,7 @@ bw_settler_evaluate (const BwSettler *s, double flow_m3_s, const BwWater *water,
     const double all[] = { r.channel_area_m2, r.channel_velocity_m_s, r.projected_area_m2,
                            r.projected_loading_m_s, r.critical_velocity_m_s, r.reynolds,
                            r.froude };
-    if (!check_results_finite (all, G_N_ELEMENTS (all), "flow", error))
+    if (!check_results_finite (all, G_N_ELEMENTS (all), BW_ ("flow"), error))
       return FALSE;
   }
   *out = r;
@@ -780,8 +785,8 @@ bw_settler_evaluate (const BwSettler *s, double flow_m3_s, const BwWater *water,
 static gboolean
 check_overflow_target (double v0_m_s, GError **error)
 {
-  return bw_check_positive (v0_m_s, "overflow rate", error)
-         && bw_check_range (v0_m_s, 0.0, 1.0, "overflow rate", "m/s", error);
+  return bw_check_positive (v0_m_s, BW_ ("overflow rate"), error)
+         && bw_check_range (v0_m_s, 0.0, 1.0, BW_ ("overflow rate"), "m/s", error);
 }
 
 gboolean
@@ -794,11 +799,11 @@ bw_basin_area_for_overflow (double flow_m3_s, guint n_basins, double overflow_ra
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_flow (flow_m3_s, error)
-      || !check_count (n_basins, MAX_BASINS, "basins", "basins in service", error)
+      || !check_count (n_basins, MAX_BASINS, BW_ ("basins"), BW_ ("basins in service"), error)
       || !check_overflow_target (overflow_rate_m_s, error))
     return FALSE;
   a = flow_m3_s / (n_basins * overflow_rate_m_s);
-  if (!check_results_finite (&a, 1, "overflow rate", error))
+  if (!check_results_finite (&a, 1, BW_ ("overflow rate"), error))
     return FALSE;
   *area_m2 = a;
   return TRUE;
@@ -815,8 +820,8 @@ bw_basin_size_for_overflow (double flow_m3_s, guint n_basins, double overflow_ra
   g_return_val_if_fail (width_m != NULL && length_m != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  if (!bw_check_positive (length_width_ratio, "length/width ratio", error)
-      || !check_plain_range (length_width_ratio, 1.0e-2, 1.0e3, "length/width ratio", error))
+  if (!bw_check_positive (length_width_ratio, BW_ ("length/width ratio"), error)
+      || !check_plain_range (length_width_ratio, 1.0e-2, 1.0e3, BW_ ("length/width ratio"), error))
     return FALSE;
   if (!bw_basin_area_for_overflow (flow_m3_s, n_basins, overflow_rate_m_s, &a, error))
     return FALSE;
@@ -834,7 +839,7 @@ smallest_count (double demand, guint max, const char *field, guint *out, GError 
   if (!(demand <= (double) max))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "%s: the target needs more than %u units", field, max);
+                   BW_ ("%s: the target needs more than %u units"), field, max);
       return FALSE;
     }
   *out = (guint) MAX (1.0, ceil (demand));
@@ -849,12 +854,12 @@ bw_basin_count_for_overflow (double flow_m3_s, double area_per_basin_m2, double 
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_flow (flow_m3_s, error)
-      || !bw_check_positive (area_per_basin_m2, "surface area", error)
-      || !bw_check_range (area_per_basin_m2, 0.0, MAX_AREA_M2, "surface area", "m2", error)
+      || !bw_check_positive (area_per_basin_m2, BW_ ("surface area"), error)
+      || !bw_check_range (area_per_basin_m2, 0.0, MAX_AREA_M2, BW_ ("surface area"), "m2", error)
       || !check_overflow_target (overflow_rate_m_s, error))
     return FALSE;
   return smallest_count (flow_m3_s / (area_per_basin_m2 * overflow_rate_m_s), MAX_BASINS,
-                         "overflow rate", n_basins, error);
+                         BW_ ("overflow rate"), n_basins, error);
 }
 
 gboolean
@@ -867,12 +872,12 @@ bw_weir_length_for_loading (double flow_m3_s, guint n_basins, double weir_loadin
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_flow (flow_m3_s, error)
-      || !check_count (n_basins, MAX_BASINS, "basins", "basins in service", error)
-      || !bw_check_positive (weir_loading_m2_s, "weir loading", error)
-      || !bw_check_range (weir_loading_m2_s, 0.0, 10.0, "weir loading", "m2/s", error))
+      || !check_count (n_basins, MAX_BASINS, BW_ ("basins"), BW_ ("basins in service"), error)
+      || !bw_check_positive (weir_loading_m2_s, BW_ ("weir loading"), error)
+      || !bw_check_range (weir_loading_m2_s, 0.0, 10.0, BW_ ("weir loading"), "m2/s", error))
     return FALSE;
   l = flow_m3_s / (n_basins * weir_loading_m2_s);
-  if (!check_results_finite (&l, 1, "weir loading", error))
+  if (!check_results_finite (&l, 1, BW_ ("weir loading"), error))
     return FALSE;
   *length_m = l;
   return TRUE;
@@ -892,13 +897,13 @@ bw_settler_count_for_loading (const BwSettler *s, double flow_m3_s, double loadi
   counted = *s;
   counted.count = 1;
   if (!check_flow (flow_m3_s, error) || !check_settler (&counted, error)
-      || !bw_check_positive (loading_m_s, "loading", error)
-      || !bw_check_range (loading_m_s, 0.0, 1.0, "loading", "m/s", error)
-      || !bw_check_positive (area_fraction, "area fraction", error)
-      || !check_plain_range (area_fraction, 0.0, 1.0, "area fraction", error))
+      || !bw_check_positive (loading_m_s, BW_ ("loading"), error)
+      || !bw_check_range (loading_m_s, 0.0, 1.0, BW_ ("loading"), "m/s", error)
+      || !bw_check_positive (area_fraction, BW_ ("area fraction"), error)
+      || !check_plain_range (area_fraction, 0.0, 1.0, BW_ ("area fraction"), error))
     return FALSE;
   channel_cell (&counted, &cell_area, &floor_width);
   unit_area = s->length_m * floor_width * cos (s->angle_rad) * area_fraction;
   return smallest_count (flow_m3_s / s->n_basins / (unit_area * loading_m_s), MAX_SETTLER_COUNT,
-                         "loading", count, error);
+                         BW_ ("loading"), count, error);
 }

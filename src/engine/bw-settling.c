@@ -7,6 +7,7 @@
 #include <math.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Largest diameter accepted, m. Beyond 0.1 m a "particle" is no longer a settling solid in a
  * treatment basin, and the drag correlations leave their range long before. */
@@ -180,13 +181,13 @@ solve_reynolds (BwDragCorrelation drag, double target, double re_hi, double *re_
 static gboolean
 check_diameter (double diameter_m, GError **error)
 {
-  if (!bw_check_positive (diameter_m, "diameter", error))
+  if (!bw_check_positive (diameter_m, BW_ ("diameter"), error))
     return FALSE;
   if (diameter_m > MAX_DIAMETER_M)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "diameter: %g m is larger than the %g m this settling model accepts "
-                   "(a discrete particle in a treatment basin)", diameter_m, MAX_DIAMETER_M);
+                   BW_ ("diameter: %g m is larger than the %g m this settling model accepts "
+                   "(a discrete particle in a treatment basin)"), diameter_m, MAX_DIAMETER_M);
       return FALSE;
     }
   return TRUE;
@@ -219,20 +220,20 @@ bw_settling_velocity_in_fluid (double diameter_m, double particle_density_kg_m3,
   if (!correlation_is_valid (drag))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "drag correlation: unknown value %d", (int) drag);
+                   BW_ ("drag correlation: unknown value %d"), (int) drag);
       return FALSE;
     }
   if (!check_diameter (diameter_m, error)
-      || !bw_check_positive (particle_density_kg_m3, "particle density", error)
-      || !bw_check_positive (fluid_density_kg_m3, "fluid density", error)
-      || !bw_check_positive (viscosity_Pa_s, "viscosity", error)
-      || !bw_check_positive (gravity_m_s2, "gravity", error))
+      || !bw_check_positive (particle_density_kg_m3, BW_ ("particle density"), error)
+      || !bw_check_positive (fluid_density_kg_m3, BW_ ("fluid density"), error)
+      || !bw_check_positive (viscosity_Pa_s, BW_ ("viscosity"), error)
+      || !bw_check_positive (gravity_m_s2, BW_ ("gravity"), error))
     return FALSE;
   if (!(particle_density_kg_m3 > fluid_density_kg_m3))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "particle density: %g kg/m3 does not exceed the fluid density %g kg/m3 "
-                   "(specific gravity %g); the particle does not settle",
+                   BW_ ("particle density: %g kg/m3 does not exceed the fluid density %g kg/m3 "
+                   "(specific gravity %g); the particle does not settle"),
                    particle_density_kg_m3, fluid_density_kg_m3,
                    particle_density_kg_m3 / fluid_density_kg_m3);
       return FALSE;
@@ -250,8 +251,8 @@ bw_settling_velocity_in_fluid (double diameter_m, double particle_density_kg_m3,
       /* d^2 or d^3 (nearly) underflowed: the inputs are far outside any physical scale, and
        * Cd = 24/Re would overflow. */
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "diameter: %g m is too small to evaluate (the Stokes Reynolds number "
-                   "underflows)", diameter_m);
+                   BW_ ("diameter: %g m is too small to evaluate (the Stokes Reynolds number "
+                   "underflows)"), diameter_m);
       return FALSE;
     }
 
@@ -274,12 +275,12 @@ bw_settling_velocity_in_fluid (double diameter_m, double particle_density_kg_m3,
       if (isfinite (target)
           && solve_reynolds (drag, target, re_s, &re, &iterations))
         g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                     "diameter: %g m settles at Re = %.3g, beyond the %s correlation's "
-                     "validity (Re < %g)", diameter_m, re, bw_drag_correlation_name (drag),
+                     BW_ ("diameter: %g m settles at Re = %.3g, beyond the %s correlation's "
+                     "validity (Re < %g)"), diameter_m, re, bw_drag_correlation_name (drag),
                      re_max);
       else
         g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                     "diameter: %g m settles beyond the %s correlation's validity (Re < %g)",
+                     BW_ ("diameter: %g m settles beyond the %s correlation's validity (Re < %g)"),
                      diameter_m, bw_drag_correlation_name (drag), re_max);
       return FALSE;
     }
@@ -287,8 +288,8 @@ bw_settling_velocity_in_fluid (double diameter_m, double particle_density_kg_m3,
   if (!solve_reynolds (drag, target, MIN (re_s, re_max), &re, &iterations))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NO_CONVERGENCE,
-                   "diameter: the settling velocity of a %g m sphere did not converge "
-                   "within %d iterations (%s correlation)", diameter_m, MAX_ITERATIONS,
+                   BW_ ("diameter: the settling velocity of a %g m sphere did not converge "
+                   "within %d iterations (%s correlation)"), diameter_m, MAX_ITERATIONS,
                    bw_drag_correlation_name (drag));
       return FALSE;
     }
@@ -302,7 +303,7 @@ bw_settling_velocity_in_fluid (double diameter_m, double particle_density_kg_m3,
   if (!isfinite (r.velocity_m_s) || !(r.drag_coefficient > 0.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_NOT_FINITE,
-                   "diameter: the settling velocity of a %g m sphere is not a finite number",
+                   BW_ ("diameter: the settling velocity of a %g m sphere is not a finite number"),
                    diameter_m);
       return FALSE;
     }
@@ -320,13 +321,13 @@ bw_settling_velocity (double diameter_m, double specific_gravity, double tempera
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
   if (!check_diameter (diameter_m, error)
-      || !bw_check_finite (specific_gravity, "specific gravity", error))
+      || !bw_check_finite (specific_gravity, BW_ ("specific gravity"), error))
     return FALSE;
   if (!(specific_gravity > 1.0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "specific gravity: %g is not above 1; a particle no denser than water "
-                   "does not settle", specific_gravity);
+                   BW_ ("specific gravity: %g is not above 1; a particle no denser than water "
+                   "does not settle"), specific_gravity);
       return FALSE;
     }
   if (!bw_water_properties (temperature_K, &water, error))

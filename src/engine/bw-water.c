@@ -7,6 +7,7 @@
 #include <math.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 /* Offset between the kelvin and the degree Celsius scales (ITS-90 definition), K. */
 #define CELSIUS_ZERO_K 273.15
@@ -150,14 +151,14 @@ bw_water_properties (double temperature_K, BwWater *out, GError **error)
   g_return_val_if_fail (out != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  if (!bw_check_finite (temperature_K, "temperature", error))
+  if (!bw_check_finite (temperature_K, BW_ ("temperature"), error))
     return FALSE;
   if (temperature_K < BW_WATER_T_MIN_K - DOMAIN_SLACK_K
       || temperature_K > BW_WATER_T_MAX_K + DOMAIN_SLACK_K)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "temperature: %g °C is outside the valid range %g to %g °C "
-                   "(liquid water at atmospheric pressure)",
+                   BW_ ("temperature: %g °C is outside the valid range %g to %g °C "
+                   "(liquid water at atmospheric pressure)"),
                    temperature_K - CELSIUS_ZERO_K, BW_WATER_T_MIN_K - CELSIUS_ZERO_K,
                    BW_WATER_T_MAX_K - CELSIUS_ZERO_K);
       return FALSE;
@@ -178,7 +179,7 @@ gboolean
 bw_water_check (const BwWater *w, GError **error)
 {
   g_return_val_if_fail (w != NULL, FALSE);
-  if (!bw_check_positive (w->density_kg_m3, "water density", error))
+  if (!bw_check_positive (w->density_kg_m3, BW_ ("water density"), error))
     return FALSE;
-  return bw_check_positive (w->dynamic_viscosity_Pa_s, "water viscosity", error);
+  return bw_check_positive (w->dynamic_viscosity_Pa_s, BW_ ("water viscosity"), error);
 }

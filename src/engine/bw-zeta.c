@@ -8,6 +8,7 @@
 #include <math.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 
 static const char *const model_names[] = { "smoluchowski", "huckel", "henry" };
 
@@ -36,8 +37,8 @@ bw_debye_length (double ionic_strength_mol_m3, const BwWater *water, double *out
   double num, den;
 
   g_return_val_if_fail (water != NULL && out_m != NULL, FALSE);
-  if (!bw_check_positive (ionic_strength_mol_m3, "ionic strength", error)
-      || !bw_check_range (ionic_strength_mol_m3, 0, 5000, "ionic strength", "mol/m³", error)
+  if (!bw_check_positive (ionic_strength_mol_m3, BW_ ("ionic strength"), error)
+      || !bw_check_range (ionic_strength_mol_m3, 0, 5000, BW_ ("ionic strength"), "mol/m³", error)
       || !bw_water_check (water, error))
     return FALSE;
   /* eps_r eps_0 k T (J/m . F/J...) over 2 N_A e^2 I: SI throughout, I in mol/m3. */
@@ -67,15 +68,15 @@ bw_zeta_from_mobility (double mobility_m2_V_s, BwZetaModel model, double radius_
   double f;
 
   g_return_val_if_fail (water != NULL && out != NULL, FALSE);
-  if (!bw_check_finite (mobility_m2_V_s, "mobility", error)
-      || !bw_check_range (fabs (mobility_m2_V_s), 0, 1e-6, "mobility", "m²/(V·s)", error)
-      || !bw_water_check (water, error) || !bw_check_nonnegative (radius_m, "radius", error)
-      || !bw_check_nonnegative (ionic_strength_mol_m3, "ionic strength", error))
+  if (!bw_check_finite (mobility_m2_V_s, BW_ ("mobility"), error)
+      || !bw_check_range (fabs (mobility_m2_V_s), 0, 1e-6, BW_ ("mobility"), "m²/(V·s)", error)
+      || !bw_water_check (water, error) || !bw_check_nonnegative (radius_m, BW_ ("radius"), error)
+      || !bw_check_nonnegative (ionic_strength_mol_m3, BW_ ("ionic strength"), error))
     return FALSE;
   if (radius_m > 0.01)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_OUT_OF_RANGE,
-                   "radius: %g m is not a colloid (at most 1 cm)", radius_m);
+                   BW_ ("radius: %g m is not a colloid (at most 1 cm)"), radius_m);
       return FALSE;
     }
   if (ionic_strength_mol_m3 > 0)
@@ -98,14 +99,14 @@ bw_zeta_from_mobility (double mobility_m2_V_s, BwZetaModel model, double radius_
       if (radius_m <= 0 || ionic_strength_mol_m3 <= 0)
         {
           g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                       "%s: Henry's function needs the particle radius and the ionic strength",
-                       radius_m <= 0 ? "radius" : "ionic strength");
+                       BW_ ("%s: Henry's function needs the particle radius and the ionic strength"),
+                       radius_m <= 0 ? BW_ ("radius") : BW_ ("ionic strength"));
           return FALSE;
         }
       f = bw_henry_function (r.kappa_a);
       break;
     default:
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "model: unknown");
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, BW_ ("model: unknown"));
       return FALSE;
     }
   /* Henry (1931): U = 2 eps_r eps_0 zeta f / (3 eta) -> zeta = 3 eta U / (2 eps_r eps_0 f); with
@@ -113,7 +114,7 @@ bw_zeta_from_mobility (double mobility_m2_V_s, BwZetaModel model, double radius_
   r.henry_function = f;
   r.zeta_V = 3.0 * water->dynamic_viscosity_Pa_s * mobility_m2_V_s
              / (2.0 * water->relative_permittivity * BW_EPSILON_0 * f);
-  if (!bw_check_result (r.zeta_V, "mobility", "zeta potential", error))
+  if (!bw_check_result (r.zeta_V, BW_ ("mobility"), BW_ ("zeta potential"), error))
     return FALSE;
   *out = r;
   return TRUE;

@@ -8,6 +8,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "engine/bw-units.h"
 #include "io/bw-xml.h"
 
@@ -27,7 +28,7 @@ read_limits (xmlNode *node, BwQuantity q, BwLimits *out, const char *path, const
       unit = bw_unit_lookup (unit_name, info->kind, field, &local);
       if (unit == NULL)
         {
-          g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s", local->message);
+          g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s"), local->message);
           return FALSE;
         }
     }
@@ -45,7 +46,7 @@ read_limits (xmlNode *node, BwQuantity q, BwLimits *out, const char *path, const
       if (end == text || *end != '\0' || !isfinite (v))
         {
           g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID,
-                       "%s:%ld: criterion %s: %s='%s' is not a finite number", path,
+                       BW_ ("%s:%ld: criterion %s: %s='%s' is not a finite number"), path,
                        bw_xml_line (node), id, attrs[i], text);
           return FALSE;
         }
@@ -83,7 +84,7 @@ read_mask (xmlNode *node, const char *attr, gboolean (*lookup) (const char *, in
       if (!lookup (words[i], &v))
         {
           g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID,
-                       "%s:%ld: criterion %s: '%s' is not a known value of %s", path,
+                       BW_ ("%s:%ld: criterion %s: '%s' is not a known value of %s"), path,
                        bw_xml_line (node), id, words[i], attr);
           return FALSE;
         }
@@ -116,7 +117,7 @@ read_criterion (xmlNode *node, const char *path, GError **error)
   if (!bw_quantity_from_name (quantity, &c->quantity))
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID,
-                   "%s:%ld: criterion %s: '%s' is not a quantity Basinwright reports", path,
+                   BW_ ("%s:%ld: criterion %s: '%s' is not a quantity Basinwright reports"), path,
                    bw_xml_line (node), c->id, quantity ? quantity : "");
       return NULL;
     }
@@ -176,7 +177,7 @@ bw_criteria_set_load (const char *path, GError **error)
   if (schema == NULL)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ,
-                   "criteria.rng: the schema is not installed (set BW_DATADIR)");
+                   BW_ ("criteria.rng: the schema is not installed (set BW_DATADIR)"));
       return NULL;
     }
   doc = bw_xml_read_file (path, error);
@@ -188,7 +189,7 @@ bw_criteria_set_load (const char *path, GError **error)
       && g_ascii_strtoll (version, NULL, 10) > BW_CRITERIA_FORMAT_VERSION)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_VERSION,
-                   "%s: written in criteria format %s; this Basinwright reads format %d", path,
+                   BW_ ("%s: written in criteria format %s; this Basinwright reads format %d"), path,
                    version, BW_CRITERIA_FORMAT_VERSION);
       xmlFreeDoc (doc);
       return NULL;
@@ -222,7 +223,7 @@ bw_criteria_set_load (const char *path, GError **error)
             }
           if (!bw_criteria_set_add (set, c, &local))
             {
-              g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s:%ld: %s", path, line,
+              g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s:%ld: %s"), path, line,
                            local->message);
               xmlFreeDoc (doc);
               return NULL;
@@ -324,6 +325,6 @@ bw_criteria_set_open (const char *name_or_path, GError **error)
         return g_ptr_array_steal_index (sets, i);
     }
   g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ,
-               "no criteria set named '%s' (basinwright-cli criteria --list shows them)", name_or_path);
+               BW_ ("no criteria set named '%s' (basinwright-cli criteria --list shows them)"), name_or_path);
   return NULL;
 }

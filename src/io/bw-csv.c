@@ -11,6 +11,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "io/bw-xml.h"
 
 static void
@@ -112,7 +113,7 @@ bw_export_csv (const BwProject *p, const BwResults *r, GArray *checks, const cha
   if (g_mkdir_with_parents (dir, 0755) != 0)
     {
       const int saved = errno;
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE, "%s: cannot create the folder: %s", dir,
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE, BW_ ("%s: cannot create the folder: %s"), dir,
                    g_strerror (saved));
       return FALSE;
     }
@@ -225,7 +226,7 @@ fail (GError **error, const char *name, guint line, const char *fmt, ...)
   va_start (ap, fmt);
   msg = g_strdup_vprintf (fmt, ap);
   va_end (ap);
-  g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s:%u: %s", name, line, msg);
+  g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s:%u: %s"), name, line, msg);
   return FALSE;
 }
 
@@ -243,7 +244,7 @@ bw_stated_read_csv (const char *data, gsize len, const char *name, GError **erro
   g_return_val_if_fail (data != NULL, NULL);
   if (len > 16 * 1024 * 1024 || memchr (data, '\0', len) || !g_utf8_validate (data, (gssize) len, NULL))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, "%s: not a UTF-8 text file under 16 MiB",
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, BW_ ("%s: not a UTF-8 text file under 16 MiB"),
                    name);
       return NULL;
     }
@@ -260,7 +261,7 @@ bw_stated_read_csv (const char *data, gsize len, const char *name, GError **erro
         continue;
       cells = split_record (l, &ok);
       if (!ok)
-        return fail (error, name, line, "an unclosed quote"), NULL;
+        return fail (error, name, line, BW_ ("an unclosed quote")), NULL;
       if (!header)
         {
           for (guint c = 0; c < cells->len; c++)
@@ -270,19 +271,19 @@ bw_stated_read_csv (const char *data, gsize len, const char *name, GError **erro
                 if (g_ascii_strcasecmp (g_ptr_array_index (cells, c), names[n]) == 0)
                   k = n;
               if (k < 0)
-                return fail (error, name, line, "column %u: '%s' is not element, quantity, case, value, "
-                             "unit or comment", c + 1, (const char *) g_ptr_array_index (cells, c)), NULL;
+                return fail (error, name, line, BW_ ("column %u: '%s' is not element, quantity, case, value, "
+                             "unit or comment"), c + 1, (const char *) g_ptr_array_index (cells, c)), NULL;
               col[k] = (int) c;
             }
           for (int n = 0; n < 5; n++)
             if (col[n] < 0)
-              return fail (error, name, line, "the header has no %s column", names[n]), NULL;
+              return fail (error, name, line, BW_ ("the header has no %s column"), names[n]), NULL;
           ncols = cells->len;
           header = TRUE;
           continue;
         }
       if (cells->len != ncols)
-        return fail (error, name, line, "%u values where the header has %u columns", cells->len, ncols), NULL;
+        return fail (error, name, line, BW_ ("%u values where the header has %u columns"), cells->len, ncols), NULL;
       {
         g_autoptr (GError) local = NULL;
         BwStated *s = g_new0 (BwStated, 1);
@@ -300,9 +301,9 @@ bw_stated_read_csv (const char *data, gsize len, const char *name, GError **erro
         if (col[5] >= 0 && *(const char *) g_ptr_array_index (cells, col[5]))
           s->comment = g_strdup (g_ptr_array_index (cells, col[5]));
         if (s->element[0] == '\0')
-          return fail (error, name, line, "element: empty"), NULL;
+          return fail (error, name, line, BW_ ("element: empty")), NULL;
         if (!bw_quantity_from_name (qname, &s->quantity))
-          return fail (error, name, line, "quantity: '%s' is not one Basinwright computes", qname), NULL;
+          return fail (error, name, line, BW_ ("quantity: '%s' is not one Basinwright computes"), qname), NULL;
         if (g_ascii_strcasecmp (cas, "max") == 0)
           s->which = BW_STATED_MAXIMUM;
         else if (g_ascii_strcasecmp (cas, "min") == 0)
@@ -310,23 +311,23 @@ bw_stated_read_csv (const char *data, gsize len, const char *name, GError **erro
         else if (bw_load_case_parse_id (cas, &s->load_case))
           s->which = BW_STATED_CASE;
         else
-          return fail (error, name, line, "case: '%s' is not max, min or a case such as "
-                       "maximum-day/coldest/all-in-service", cas), NULL;
+          return fail (error, name, line, BW_ ("case: '%s' is not max, min or a case such as "
+                       "maximum-day/coldest/all-in-service"), cas), NULL;
         v = g_ascii_strtod (vtext, &end);
         if (*vtext == '\0' || end == vtext || *end != '\0' || !isfinite (v))
-          return fail (error, name, line, "value: '%s' is not a number", vtext), NULL;
+          return fail (error, name, line, BW_ ("value: '%s' is not a number"), vtext), NULL;
         unit = *utext ? bw_unit_lookup (utext, bw_quantity_info (s->quantity)->kind, "unit", &local)
                       : bw_units_si_unit (bw_quantity_info (s->quantity)->kind);
         if (unit == NULL)
-          return fail (error, name, line, "%s", local->message), NULL;
+          return fail (error, name, line, BW_ ("%s"), local->message), NULL;
         s->value = bw_unit_to_si (unit, v);
         if (!isfinite (s->value))
-          return fail (error, name, line, "value: '%s' is too large", vtext), NULL;
+          return fail (error, name, line, BW_ ("value: '%s' is too large"), vtext), NULL;
       }
     }
   if (!header)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s: no header row", name);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s: no header row"), name);
       return NULL;
     }
   return g_steal_pointer (&out);
@@ -341,7 +342,7 @@ bw_stated_load_csv (const char *path, GError **error)
 
   if (!g_file_get_contents (path, &data, &len, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, "%s", local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, BW_ ("%s"), local->message);
       return NULL;
     }
   return bw_stated_read_csv (data, len, path, error);

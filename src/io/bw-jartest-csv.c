@@ -9,6 +9,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "engine/bw-units.h"
 #include "io/bw-xml.h"
 
@@ -38,7 +39,7 @@ fail (GError **error, const char *name, guint line, const char *fmt, ...)
   va_start (ap, fmt);
   msg = g_strdup_vprintf (fmt, ap);
   va_end (ap);
-  g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s:%u: %s", name, line, msg);
+  g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s:%u: %s"), name, line, msg);
   return FALSE;
 }
 
@@ -60,12 +61,12 @@ bw_jartest_read_csv (const char *data, gsize len, const char *name, BwJarSeries 
     name = "(jar test)";
   if (len > 4 * 1024 * 1024)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_TOO_LARGE, "%s: over the 4 MiB limit for a sheet", name);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_TOO_LARGE, BW_ ("%s: over the 4 MiB limit for a sheet"), name);
       return FALSE;
     }
   if (memchr (data, '\0', len) || !g_utf8_validate (data, (gssize) len, NULL))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, "%s: not UTF-8 text", name);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, BW_ ("%s: not UTF-8 text"), name);
       return FALSE;
     }
   text = g_strndup (data, len);
@@ -95,7 +96,7 @@ bw_jartest_read_csv (const char *data, gsize len, const char *name, BwJarSeries 
                 {
                   char *close = strrchr (cell, ')');
                   if (close == NULL || close < paren)
-                    return fail (error, name, line_no, "column %u: '%s' has an unclosed unit", c + 1, cell);
+                    return fail (error, name, line_no, BW_ ("column %u: '%s' has an unclosed unit"), c + 1, cell);
                   uname = g_strstrip (g_strndup (paren + 1, (gsize) (close - paren - 1)));
                   cname = g_strstrip (g_strndup (cell, (gsize) (paren - cell)));
                 }
@@ -106,39 +107,39 @@ bw_jartest_read_csv (const char *data, gsize len, const char *name, BwJarSeries 
                   which = k;
               if (which < 0)
                 return fail (error, name, line_no,
-                             "column %u: '%s' is not dose, turbidity, pH, zeta or mobility", c + 1, cname);
+                             BW_ ("column %u: '%s' is not dose, turbidity, pH, zeta or mobility"), c + 1, cname);
               if (col_of[which] >= 0)
-                return fail (error, name, line_no, "column %u: %s is given twice", c + 1, cname);
+                return fail (error, name, line_no, BW_ ("column %u: %s is given twice"), c + 1, cname);
               col_of[which] = (int) c;
               if (which == COL_PH)
                 {
                   if (uname && *uname)
-                    return fail (error, name, line_no, "column %u: pH takes no unit", c + 1);
+                    return fail (error, name, line_no, BW_ ("column %u: pH takes no unit"), c + 1);
                   unit_of[which] = bw_units_si_unit (BW_KIND_NUMBER);
                 }
               else
                 {
                   if (uname == NULL || *uname == '\0')
-                    return fail (error, name, line_no, "column %u: %s needs its unit, e.g. \"%s (%s)\"",
+                    return fail (error, name, line_no, BW_ ("column %u: %s needs its unit, e.g. \"%s (%s)\""),
                                  c + 1, cname, cname,
                                  bw_units_display_unit (columns[which].kind, BW_UNIT_SYSTEM_SI)->ascii);
                   unit_of[which] = bw_unit_lookup (uname, columns[which].kind, cname, &local);
                   if (unit_of[which] == NULL)
-                    return fail (error, name, line_no, "column %u: %s", c + 1, local->message);
+                    return fail (error, name, line_no, BW_ ("column %u: %s"), c + 1, local->message);
                 }
             }
           if (col_of[COL_DOSE] < 0 || col_of[COL_TURBIDITY] < 0)
-            return fail (error, name, line_no, "the header needs a dose and a turbidity column");
+            return fail (error, name, line_no, BW_ ("the header needs a dose and a turbidity column"));
           if (col_of[COL_ZETA] >= 0 && col_of[COL_MOBILITY] >= 0)
-            return fail (error, name, line_no, "give zeta or mobility, not both");
+            return fail (error, name, line_no, BW_ ("give zeta or mobility, not both"));
           ncols = n;
           header = TRUE;
           continue;
         }
       if (n != ncols)
-        return fail (error, name, line_no, "%u values where the header has %u columns", n, ncols);
+        return fail (error, name, line_no, BW_ ("%u values where the header has %u columns"), n, ncols);
       if (s.n_jars >= BW_JAR_MAX)
-        return fail (error, name, line_no, "more than %d jars", BW_JAR_MAX);
+        return fail (error, name, line_no, BW_ ("more than %d jars"), BW_JAR_MAX);
       for (int k = 0; k < N_COLS; k++)
         {
           char *cell, *end = NULL;
@@ -149,7 +150,7 @@ bw_jartest_read_csv (const char *data, gsize len, const char *name, BwJarSeries 
           cell = g_strstrip (cells[col_of[k]]);
           v = g_ascii_strtod (cell, &end);
           if (*cell == '\0' || end == cell || *end != '\0' || !isfinite (v))
-            return fail (error, name, line_no, "%s: '%s' is not a number", columns[k].name, cell);
+            return fail (error, name, line_no, BW_ ("%s: '%s' is not a number"), columns[k].name, cell);
           v = bw_unit_to_si (unit_of[k], v);
           switch ((Column) k)
             {
@@ -165,7 +166,7 @@ bw_jartest_read_csv (const char *data, gsize len, const char *name, BwJarSeries 
     }
   if (!header)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s: no header row", name);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s: no header row"), name);
       return FALSE;
     }
   s.has_ph = col_of[COL_PH] >= 0;
@@ -173,7 +174,7 @@ bw_jartest_read_csv (const char *data, gsize len, const char *name, BwJarSeries 
   s.has_mobility = col_of[COL_MOBILITY] >= 0;
   if (!bw_jar_series_prepare (&s, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s: %s", name, local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s: %s"), name, local->message);
       return FALSE;
     }
   *out = s;
@@ -189,7 +190,7 @@ bw_jartest_load_csv (const char *path, BwJarSeries *out, GError **error)
 
   if (!g_file_get_contents (path, &data, &len, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, "%s", local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, BW_ ("%s"), local->message);
       return FALSE;
     }
   return bw_jartest_read_csv (data, len, path, out, error);

@@ -11,6 +11,7 @@
 #include <string.h>
 
 #include "engine/bw-error.h"
+#include "engine/bw-i18n.h"
 #include "engine/bw-units.h"
 #include "io/bw-xml.h"
 
@@ -56,7 +57,7 @@ fail (GError **error, const char *path, xmlNode *node, const char *fmt, ...)
   va_start (ap, fmt);
   msg = g_strdup_vprintf (fmt, ap);
   va_end (ap);
-  g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s:%ld: %s", path, bw_xml_line (node), msg);
+  g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s:%ld: %s"), path, bw_xml_line (node), msg);
   return FALSE;
 }
 
@@ -74,18 +75,18 @@ read_quantity (xmlNode *node, BwQuantityKind kind, const char *what, double *out
 
   v = g_ascii_strtod (text, &end);
   if (end == text || *end != '\0' || !isfinite (v))
-    return fail (error, path, node, "%s: '%s' is not a finite number", what, text);
+    return fail (error, path, node, BW_ ("%s: '%s' is not a finite number"), what, text);
   if (unit_name)
     {
       unit = bw_unit_lookup (unit_name, kind, what, &local);
       if (unit == NULL)
-        return fail (error, path, node, "%s", local->message);
+        return fail (error, path, node, BW_ ("%s"), local->message);
     }
   else
     unit = bw_units_si_unit (kind);
   *out = bw_unit_to_si (unit, v);
   if (!isfinite (*out))
-    return fail (error, path, node, "%s: '%s' is too large", what, text);
+    return fail (error, path, node, BW_ ("%s: '%s' is too large"), what, text);
   return TRUE;
 }
 
@@ -110,7 +111,7 @@ read_values (xmlDoc *doc, xmlNode *parent, BwProcessUnit *u, const char *path, G
           double v = 0;
 
           if (i < 0)
-            return fail (error, path, k, "%s: a %s has no parameter '%s'", u->id,
+            return fail (error, path, k, BW_ ("%s: a %s has no parameter '%s'"), u->id,
                          bw_process_type_label (u->type), param);
           spec = &bw_params_of (u->type, NULL)[i];
           if (spec->type == BW_PARAM_CHOICE)
@@ -120,7 +121,7 @@ read_values (xmlDoc *doc, xmlNode *parent, BwProcessUnit *u, const char *path, G
               if (!bw_param_choice_index (spec, text, &idx))
                 {
                   g_autofree char *choices = bw_param_choices_joined (spec);
-                  return fail (error, path, k, "%s: %s: '%s' is not one of %s", u->id, spec->label,
+                  return fail (error, path, k, BW_ ("%s: %s: '%s' is not one of %s"), u->id, spec->label,
                                text, choices);
                 }
               v = idx;
@@ -128,7 +129,7 @@ read_values (xmlDoc *doc, xmlNode *parent, BwProcessUnit *u, const char *path, G
           else if (!read_quantity (k, spec->kind, spec->label, &v, path, error))
             return FALSE;
           if (!bw_process_unit_set (u, param, v, &local))
-            return fail (error, path, k, "%s: %s", u->id, local->message);
+            return fail (error, path, k, BW_ ("%s: %s"), u->id, local->message);
         }
     }
   return TRUE;
@@ -145,7 +146,7 @@ read_count_attr (xmlNode *node, const char *name, guint *out, const char *path, 
     return TRUE;
   v = g_ascii_strtoll (text, &end, 10);
   if (end == text || *end != '\0' || v < 0 || v > 1000)
-    return fail (error, path, node, "%s='%s' is not a whole number from 0 to 1000", name, text);
+    return fail (error, path, node, BW_ ("%s='%s' is not a whole number from 0 to 1000"), name, text);
   *out = (guint) v;
   return TRUE;
 }
@@ -161,8 +162,8 @@ read_unit (xmlDoc *doc, xmlNode *node, gboolean is_stage, const char *path, GErr
 
   if (!bw_process_type_from_name (type_name, &type) || bw_process_type_is_stage (type) != is_stage)
     {
-      fail (error, path, node, "%s: '%s' is not a kind of %s Basinwright knows", id, type_name,
-            is_stage ? "flocculator stage" : "unit");
+      fail (error, path, node, BW_ ("%s: '%s' is not a kind of %s Basinwright knows"), id, type_name,
+            is_stage ? BW_ ("flocculator stage") : BW_ ("unit"));
       return NULL;
     }
   u = bw_process_unit_new (type, id, name);
@@ -194,9 +195,9 @@ read_basis (xmlNode *node, BwProject *p, const char *path, GError **error)
           g_autofree char *c = bw_xml_prop (k, "case");
           BwFlowKind f;
           if (!bw_flow_kind_from_name (c, &f))
-            return fail (error, path, k, "flow: '%s' is not a flow case", c);
+            return fail (error, path, k, BW_ ("flow: '%s' is not a flow case"), c);
           if ((p->basis.flows_given >> f) & 1)
-            return fail (error, path, k, "%s flow: given twice", bw_flow_kind_label (f));
+            return fail (error, path, k, BW_ ("%s flow: given twice"), bw_flow_kind_label (f));
           if (!read_quantity (k, BW_KIND_FLOW, "flow", &p->basis.flow_m3_s[f], path, error))
             return FALSE;
           p->basis.flows_given |= 1u << f;
@@ -206,9 +207,9 @@ read_basis (xmlNode *node, BwProject *p, const char *path, GError **error)
           g_autofree char *c = bw_xml_prop (k, "case");
           BwTempKind t;
           if (!bw_temp_kind_from_name (c, &t))
-            return fail (error, path, k, "temperature: '%s' is not a temperature case", c);
+            return fail (error, path, k, BW_ ("temperature: '%s' is not a temperature case"), c);
           if ((temps >> t) & 1)
-            return fail (error, path, k, "%s temperature: given twice", c);
+            return fail (error, path, k, BW_ ("%s temperature: given twice"), c);
           if (!read_quantity (k, BW_KIND_TEMPERATURE, "temperature", &p->basis.temperature_K[t],
                               path, error))
             return FALSE;
@@ -229,7 +230,7 @@ read_basis (xmlNode *node, BwProject *p, const char *path, GError **error)
           }
     }
   if (temps != 3)
-    return fail (error, path, node, "design basis: both the coldest and the warmest temperature are needed");
+    return fail (error, path, node, BW_ ("design basis: both the coldest and the warmest temperature are needed"));
   return TRUE;
 }
 
@@ -244,7 +245,7 @@ read_positive (xmlNode *node, BwQuantityKind kind, const char *what, double *out
   if (!(*out > 0))
     {
       g_autofree char *text = text_of (node);
-      return fail (error, path, node, "%s: must be above zero when given (got %s)", what, text);
+      return fail (error, path, node, BW_ ("%s: must be above zero when given (got %s)"), what, text);
     }
   return TRUE;
 }
@@ -259,7 +260,7 @@ read_chemistry (xmlNode *node, BwProject *p, const char *path, GError **error)
   c->enabled = TRUE;
   c->jar_test = bw_xml_prop (node, "jar-test");
   if (!bw_coagulant_kind_from_name (kind, &c->kind))
-    return fail (error, path, node, "chemistry: '%s' is not a coagulant", kind);
+    return fail (error, path, node, BW_ ("chemistry: '%s' is not a coagulant"), kind);
   for (xmlNode *k = node->children; k; k = k->next)
     {
       if (bw_xml_is (k, NS, "hydrate")
@@ -298,7 +299,7 @@ read_chemistry (xmlNode *node, BwProject *p, const char *path, GError **error)
         {
           g_autofree char *text = text_of (k);
           if (!bw_alkali_kind_from_name (text, &c->alkali))
-            return fail (error, path, k, "alkali supplement: '%s' is not lime or soda-ash", text);
+            return fail (error, path, k, BW_ ("alkali supplement: '%s' is not lime or soda-ash"), text);
         }
       if (bw_xml_is (k, NS, "dose"))
         {
@@ -311,7 +312,7 @@ read_chemistry (xmlNode *node, BwProject *p, const char *path, GError **error)
         }
     }
   if (doses != 7)
-    return fail (error, path, node, "chemistry: the minimum, design and maximum doses are all needed");
+    return fail (error, path, node, BW_ ("chemistry: the minimum, design and maximum doses are all needed"));
   return TRUE;
 }
 
@@ -327,7 +328,7 @@ read_number_attr (xmlNode *node, const char *name, double *out, gboolean *presen
     return TRUE;
   *out = g_ascii_strtod (text, &end);
   if (end == text || *end != '\0' || !isfinite (*out))
-    return fail (error, path, node, "jar: %s='%s' is not a finite number", name, text);
+    return fail (error, path, node, BW_ ("jar: %s='%s' is not a finite number"), name, text);
   return TRUE;
 }
 
@@ -350,7 +351,7 @@ read_jar_test (xmlNode *node, BwProject *p, const char *path, GError **error)
           BwJar *j;
           gboolean has = FALSE, d1, d2;
           if (r->series.n_jars >= BW_JAR_MAX)
-            return fail (error, path, k, "jar test %s: more than %d jars", id, BW_JAR_MAX);
+            return fail (error, path, k, BW_ ("jar test %s: more than %d jars"), id, BW_JAR_MAX);
           j = &r->series.jars[r->series.n_jars++];
           if (!read_number_attr (k, "dose", &j->dose_kg_m3, &d1, path, error)
               || !read_number_attr (k, "turbidity", &j->turbidity_NTU, &d2, path, error)
@@ -368,7 +369,7 @@ read_jar_test (xmlNode *node, BwProject *p, const char *path, GError **error)
   /* A column is either on every jar or on none. */
   if ((with_ph && with_ph != r->series.n_jars) || (with_zeta && with_zeta != r->series.n_jars)
       || (with_mob && with_mob != r->series.n_jars))
-    return fail (error, path, node, "jar test %s: pH, zeta or mobility is given for some jars only", id);
+    return fail (error, path, node, BW_ ("jar test %s: pH, zeta or mobility is given for some jars only"), id);
   r->series.has_ph = with_ph > 0;
   r->series.has_zeta = with_zeta > 0;
   r->series.has_mobility = with_mob > 0;
@@ -397,9 +398,9 @@ read_review (xmlNode *node, BwProject *p, const char *path, GError **error)
           st->line = (guint) MAX (0, bw_xml_line (k));
           st->element = bw_xml_prop (k, "element");
           if (st->element == NULL || st->element[0] == '\0')
-            return fail (error, path, k, "stated value: element: empty");
+            return fail (error, path, k, BW_ ("stated value: element: empty"));
           if (!bw_quantity_from_name (qname, &st->quantity))
-            return fail (error, path, k, "stated value %s: quantity: '%s' is not one Basinwright computes",
+            return fail (error, path, k, BW_ ("stated value %s: quantity: '%s' is not one Basinwright computes"),
                          st->element, qname);
           if (g_strcmp0 (cas, "max") == 0)
             st->which = BW_STATED_MAXIMUM;
@@ -408,8 +409,8 @@ read_review (xmlNode *node, BwProject *p, const char *path, GError **error)
           else if (bw_load_case_parse_id (cas, &st->load_case))
             st->which = BW_STATED_CASE;
           else
-            return fail (error, path, k, "stated value %s: case: '%s' is not max, min or a load case "
-                         "such as maximum-day/coldest/all-in-service", st->element, cas);
+            return fail (error, path, k, BW_ ("stated value %s: case: '%s' is not max, min or a load case "
+                         "such as maximum-day/coldest/all-in-service"), st->element, cas);
           for (xmlNode *v = k->children; v; v = v->next)
             if (bw_xml_is (v, NS, "value"))
               {
@@ -428,7 +429,7 @@ read_review (xmlNode *node, BwProject *p, const char *path, GError **error)
                 xmlFree (t);
               }
           if (!have_value)
-            return fail (error, path, k, "stated value %s %s: value: missing", st->element, qname);
+            return fail (error, path, k, BW_ ("stated value %s %s: value: missing"), st->element, qname);
         }
     }
   return TRUE;
@@ -450,10 +451,10 @@ read_number_list (xmlNode *node, const char *what, double *out, guint max, guint
       if (words[i][0] == '\0')
         continue;
       if (*n >= max)
-        return fail (error, path, node, "%s: more than %u values", what, max);
+        return fail (error, path, node, BW_ ("%s: more than %u values"), what, max);
       v = g_ascii_strtod (words[i], &end);
       if (end == words[i] || *end != '\0' || !isfinite (v))
-        return fail (error, path, node, "%s: '%s' is not a finite number", what, words[i]);
+        return fail (error, path, node, BW_ ("%s: '%s' is not a finite number"), what, words[i]);
       out[(*n)++] = v;
     }
   return TRUE;
@@ -475,7 +476,7 @@ read_column_test (xmlNode *node, BwProject *p, const char *path, GError **error)
   else if (g_strcmp0 (kind, "concentration") == 0)
     r->kind = BW_COLUMN_READING_CONCENTRATION;
   else
-    return fail (error, path, node, "column test %s: readings: '%s' is not removal or concentration",
+    return fail (error, path, node, BW_ ("column test %s: readings: '%s' is not removal or concentration"),
                  id, kind);
   if (applies)
     {
@@ -499,7 +500,7 @@ read_column_test (xmlNode *node, BwProject *p, const char *path, GError **error)
           g_autoptr (GError) local = NULL;
           g_autofree char *what = g_strdup_printf ("column test %s: times", id);
           if (unit_name && (unit = bw_unit_lookup (unit_name, BW_KIND_TIME, what, &local)) == NULL)
-            return fail (error, path, k, "%s", local->message);
+            return fail (error, path, k, BW_ ("%s"), local->message);
           if (!read_number_list (k, what, r->time_s, BW_COLUMN_MAX_TIMES, &r->n_times, path, error))
             return FALSE;
           for (guint i = 0; i < r->n_times; i++)
@@ -508,7 +509,7 @@ read_column_test (xmlNode *node, BwProject *p, const char *path, GError **error)
         }
     }
   if (!have_times)
-    return fail (error, path, node, "column test %s: times: missing", id);
+    return fail (error, path, node, BW_ ("column test %s: times: missing"), id);
   for (xmlNode *k = node->children; k; k = k->next)
     if (bw_xml_is (k, NS, "port"))
       {
@@ -518,15 +519,15 @@ read_column_test (xmlNode *node, BwProject *p, const char *path, GError **error)
         double d;
         guint n = 0;
         if (r->n_depths >= BW_COLUMN_MAX_DEPTHS)
-          return fail (error, path, k, "column test %s: more than %d ports", id, BW_COLUMN_MAX_DEPTHS);
+          return fail (error, path, k, BW_ ("column test %s: more than %d ports"), id, BW_COLUMN_MAX_DEPTHS);
         d = depth ? g_ascii_strtod (depth, &end) : 0;
         if (depth == NULL || end == depth || *end != '\0' || !isfinite (d))
-          return fail (error, path, k, "column test %s: port: depth='%s' is not a finite number", id,
+          return fail (error, path, k, BW_ ("column test %s: port: depth='%s' is not a finite number"), id,
                        depth ? depth : "");
         if (!read_number_list (k, what, r->reading[r->n_depths], BW_COLUMN_MAX_TIMES, &n, path, error))
           return FALSE;
         if (n != r->n_times)
-          return fail (error, path, k, "%s: %u readings where the test has %u sampling times", what, n,
+          return fail (error, path, k, BW_ ("%s: %u readings where the test has %u sampling times"), what, n,
                        r->n_times);
         r->depth_m[r->n_depths++] = d;
       }
@@ -563,8 +564,8 @@ read_project (xmlDoc *doc, const char *path, GError **error)
                   *slot = text_of (i);
                   if (strlen (*slot) > limit)
                     {
-                      fail (error, path, i, "%s: longer than %" G_GSIZE_FORMAT " characters",
-                            (const char *) i->name, limit);
+                      fail (error, path, i, BW_ ("%s: longer than %lu characters"),
+                            (const char *) i->name, (unsigned long) limit);
                       return NULL;
                     }
                 }
@@ -611,7 +612,7 @@ read_project (xmlDoc *doc, const char *path, GError **error)
                 if (!bw_flow_kind_from_name (f, &lc.flow) || !bw_temp_kind_from_name (t, &lc.temp)
                     || !bw_service_state_from_name (s, &lc.service))
                   {
-                    fail (error, path, c, "load case: unknown flow, temperature or service");
+                    fail (error, path, c, BW_ ("load case: unknown flow, temperature or service"));
                     return NULL;
                   }
                 lc.enabled = en == NULL || strcmp (en, "true") == 0 || strcmp (en, "1") == 0;
@@ -652,7 +653,7 @@ bw_project_load_memory (const char *data, gsize len, const char *name, GError **
   if (schema == NULL)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ,
-                   "basinwright-project.rng: the schema is not installed (set BW_DATADIR)");
+                   BW_ ("basinwright-project.rng: the schema is not installed (set BW_DATADIR)"));
       return NULL;
     }
   doc = bw_xml_read_memory (data, len, name, error);
@@ -662,7 +663,7 @@ bw_project_load_memory (const char *data, gsize len, const char *name, GError **
   if (!bw_xml_is (root, NS, "project"))
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID,
-                   "%s:%ld: not a Basinwright project (the root element is not <project> in %s)",
+                   BW_ ("%s:%ld: not a Basinwright project (the root element is not <project> in %s)"),
                    name, bw_xml_line (root), NS);
       xmlFreeDoc (doc);
       return NULL;
@@ -671,7 +672,7 @@ bw_project_load_memory (const char *data, gsize len, const char *name, GError **
   if (version && g_ascii_strtoll (version, NULL, 10) > BW_PROJECT_FORMAT_VERSION)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_VERSION,
-                   "%s: written in project format %s by a newer Basinwright; this one reads format %d",
+                   BW_ ("%s: written in project format %s by a newer Basinwright; this one reads format %d"),
                    name, version, BW_PROJECT_FORMAT_VERSION);
       xmlFreeDoc (doc);
       return NULL;
@@ -685,7 +686,7 @@ bw_project_load_memory (const char *data, gsize len, const char *name, GError **
   xmlFreeDoc (doc);
   if (p && !bw_project_validate (p, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s: %s", name, local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s: %s"), name, local->message);
       bw_project_free (p);
       return NULL;
     }
@@ -703,13 +704,13 @@ bw_project_load (const char *path, GError **error)
   g_return_val_if_fail (path != NULL, NULL);
   if (g_stat (path, &st) == 0 && st.st_size > BW_XML_MAX_BYTES)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_TOO_LARGE, "%s: over the %d MiB limit", path,
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_TOO_LARGE, BW_ ("%s: over the %d MiB limit"), path,
                    BW_XML_MAX_BYTES / (1024 * 1024));
       return NULL;
     }
   if (!g_file_get_contents (path, &data, &len, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, "%s", local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, BW_ ("%s"), local->message);
       return NULL;
     }
   return bw_project_load_memory (data, len, path, error);
@@ -1041,7 +1042,7 @@ bw_project_save (const BwProject *p, const char *path, GError **error)
   g_return_val_if_fail (p != NULL && path != NULL, FALSE);
   if (!bw_project_validate (p, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s: not saved: %s", path, local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s: not saved: %s"), path, local->message);
       return FALSE;
     }
   xml = bw_project_to_xml (p);

@@ -13,6 +13,8 @@
 #include <string.h>
 #include <unistd.h>
 
+#include "engine/bw-i18n.h"
+
 G_DEFINE_QUARK (bw-io-error-quark, bw_io_error)
 
 /* libxml2 keeps one global error handler; ours stays silent and lets each context report. */
@@ -60,13 +62,13 @@ check_safe (const char *data, gsize len, const char *name, GError **error)
           for (const char *p = data; p < hit; p++)
             line += *p == '\n';
           g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_UNSAFE,
-                       "%s:%ld: document type and entity declarations are not allowed", name, line);
+                       BW_ ("%s:%ld: document type and entity declarations are not allowed"), name, line);
           return FALSE;
         }
     }
   if (memchr (data, '\0', len) != NULL)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, "%s: the file holds a NUL byte; it is not text",
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, BW_ ("%s: the file holds a NUL byte; it is not text"),
                    name);
       return FALSE;
     }
@@ -87,7 +89,7 @@ bw_xml_read_memory (const char *data, gsize len, const char *name, GError **erro
   if (len > BW_XML_MAX_BYTES)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_TOO_LARGE,
-                   "%s: %" G_GSIZE_FORMAT " bytes is over the %d MiB limit for a file", name, len,
+                   BW_ ("%s: %lu bytes is over the %d MiB limit for a file"), name, (unsigned long) len,
                    BW_XML_MAX_BYTES / (1024 * 1024));
       return NULL;
     }
@@ -95,7 +97,7 @@ bw_xml_read_memory (const char *data, gsize len, const char *name, GError **erro
     return NULL;
   if (!g_utf8_validate (data, (gssize) len, NULL))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, "%s: the file is not valid UTF-8 text",
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, BW_ ("%s: the file is not valid UTF-8 text"),
                    name);
       return NULL;
     }
@@ -104,7 +106,7 @@ bw_xml_read_memory (const char *data, gsize len, const char *name, GError **erro
   ctxt = xmlNewParserCtxt ();
   if (ctxt == NULL)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, "%s: out of memory", name);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, BW_ ("%s: out of memory"), name);
       return NULL;
     }
   doc = xmlCtxtReadMemory (ctxt, data, (int) len, name, "UTF-8", options);
@@ -112,7 +114,7 @@ bw_xml_read_memory (const char *data, gsize len, const char *name, GError **erro
     {
       const xmlError *e = xmlCtxtGetLastError (ctxt);
       g_autofree char *msg = g_strchomp (g_strdup (e && e->message ? e->message : "not well-formed XML"));
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, "%s:%d: %s", name, e ? e->line : 0, msg);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_MALFORMED, BW_ ("%s:%d: %s"), name, e ? e->line : 0, msg);
       if (doc)
         xmlFreeDoc (doc);
       xmlFreeParserCtxt (ctxt);
@@ -122,7 +124,7 @@ bw_xml_read_memory (const char *data, gsize len, const char *name, GError **erro
   if (doc->intSubset != NULL || doc->extSubset != NULL)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_UNSAFE,
-                   "%s: document type declarations are not allowed", name);
+                   BW_ ("%s: document type declarations are not allowed"), name);
       xmlFreeDoc (doc);
       return NULL;
     }
@@ -141,13 +143,13 @@ bw_xml_read_file (const char *path, GError **error)
   if (g_stat (path, &st) == 0 && st.st_size > BW_XML_MAX_BYTES)
     {
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_TOO_LARGE,
-                   "%s: %lld bytes is over the %d MiB limit for a file", path,
+                   BW_ ("%s: %lld bytes is over the %d MiB limit for a file"), path,
                    (long long) st.st_size, BW_XML_MAX_BYTES / (1024 * 1024));
       return NULL;
     }
   if (!g_file_get_contents (path, &data, &len, &local))
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, "%s", local->message);
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, BW_ ("%s"), local->message);
       return NULL;
     }
   return bw_xml_read_memory (data, len, path, error);
@@ -186,7 +188,7 @@ bw_xml_validate (xmlDoc *doc, const char *schema_path, const char *name, GError 
   xmlRelaxNGFreeParserCtxt (pctxt);
   if (schema == NULL)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, "%s: the schema cannot be read (%s)",
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_READ, BW_ ("%s: the schema cannot be read (%s)"),
                    schema_path, v.first->str);
       g_string_free (v.first, TRUE);
       return FALSE;
@@ -199,7 +201,7 @@ bw_xml_validate (xmlDoc *doc, const char *schema_path, const char *name, GError 
   xmlRelaxNGFree (schema);
   if (rc != 0)
     {
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, "%s:%s", name ? name : "(document)",
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_INVALID, BW_ ("%s:%s"), name ? name : "(document)",
                    v.first->len ? v.first->str : " does not match the schema");
       g_string_free (v.first, TRUE);
       return FALSE;
@@ -263,7 +265,7 @@ bw_write_atomic (const char *path, const char *data, gsize len, GError **error)
     {
       saved = errno;
       g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE,
-                   "%s: the file cannot be overwritten (%s); it is untouched", path,
+                   BW_ ("%s: the file cannot be overwritten (%s); it is untouched"), path,
                    g_strerror (saved));
       return FALSE;
     }
@@ -272,7 +274,7 @@ bw_write_atomic (const char *path, const char *data, gsize len, GError **error)
   if (fd < 0)
     {
       saved = errno;
-      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE, "%s: cannot write in %s: %s", path, dir,
+      g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE, BW_ ("%s: cannot write in %s: %s"), path, dir,
                    g_strerror (saved));
       return FALSE;
     }
@@ -310,7 +312,7 @@ fail:
     close (fd);
   g_unlink (tmpl);
   g_set_error (error, BW_IO_ERROR, BW_IO_ERROR_WRITE,
-               "%s: the file could not be saved (%s); the previous version is untouched", path,
+               BW_ ("%s: the file could not be saved (%s); the previous version is untouched"), path,
                g_strerror (saved ? saved : EIO));
   return FALSE;
 }

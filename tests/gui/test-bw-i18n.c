@@ -262,6 +262,47 @@ START_TEST (test_engine_messages_in_spanish)
 }
 END_TEST
 
+/* The models' and the file loader's messages are Spanish too: a geometry the paddle model
+ * refuses, shown under the field, and a project file the loader refuses, as open reports it. */
+START_TEST (test_model_and_loader_messages_in_spanish)
+{
+  BwWindow *w = demo_window ();
+  g_autofree char *demo = bw_gui_test_demo_path ();
+  g_autofree char *text = NULL;
+  g_autofree char *bad = g_build_filename (tmpdir, "malo.bwproj", NULL);
+  g_autoptr (GError) error = NULL;
+  GtkWidget *e, *err;
+  const char *shown;
+  char *at;
+
+  /* Two wheels of 50 m blades along a 3 m shaft (bw-floc.c, the paddle geometry check). */
+  bw_window_select_unit (w, "north-floc-2");
+  e = bw_window_get_field_widget (w, "blade-length");
+  gtk_editable_set_text (GTK_EDITABLE (e), "50 m");
+  g_signal_emit_by_name (e, "activate");
+  bw_gui_test_pump (5);
+  err = bw_window_get_field_error (w, "blade-length");
+  ck_assert (gtk_widget_get_visible (err));
+  shown = gtk_label_get_text (GTK_LABEL (err));
+  ck_assert_msg (strstr (shown, "a lo largo del eje") != NULL, "not the Spanish message: %s", shown);
+  ck_assert_msg (strstr (shown, "along the shaft") == NULL, "English left in: %s", shown);
+  ck_assert_double_eq (bw_process_unit_get (bw_project_find_unit (bw_window_get_project (w), "north-floc-2", NULL),
+                                            "blade-length"), 2.2);
+
+  /* The demo with a stage type no version of the program has (bw-project-xml.c). */
+  ck_assert (g_file_get_contents (demo, &text, NULL, NULL));
+  at = strstr (text, "type=\"paddle-stage\"");
+  ck_assert_ptr_nonnull (at);
+  memcpy (at, "type=\"puddle-stage\"", strlen ("type=\"puddle-stage\""));
+  ck_assert (g_file_set_contents (bad, text, -1, NULL));
+  ck_assert (!bw_window_open_path (w, bad, &error));
+  ck_assert_ptr_nonnull (error);
+  ck_assert_msg (strstr (error->message, "no es un tipo de etapa de floculador que Basinwright conozca") != NULL,
+                 "not the Spanish message: %s", error->message);
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_locale_helpers)
 {
   char *s;
@@ -304,6 +345,7 @@ i18n_suite (void)
   tcase_add_test (tc, test_engine_text_in_spanish);
   tcase_add_test (tc, test_numbers_use_the_decimal_comma);
   tcase_add_test (tc, test_engine_messages_in_spanish);
+  tcase_add_test (tc, test_model_and_loader_messages_in_spanish);
   tcase_add_test (tc, test_locale_helpers);
   suite_add_tcase (s, tc);
   return s;
