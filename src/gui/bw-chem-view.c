@@ -21,6 +21,7 @@
 #include "engine/bw-error.h"
 #include "engine/bw-water.h"
 #include "gui/bw-locale.h"
+#include "gui/bw-wheel.h"
 #include "io/bw-jartest-csv.h"
 
 /* PACl strength put in when the coagulant is switched to PACl and none was set: 10.5 % Al2O3 and
@@ -1392,32 +1393,6 @@ bw_chem_view_class_init (BwChemViewClass *klass)
   gtk_widget_class_bind_template_child (widget_class, BwChemView, results_scroller);
 }
 
-/* The wheel over the sideways-scrolling tables moves the page up and down, as it does anywhere
- * else on it: GTK 4.8's scrolled window takes vertical wheel events even with no vertical
- * scrolling of its own. Shift+wheel, and horizontal scrolling, stay with the tables. */
-static gboolean
-results_scroll (GtkEventControllerScroll *c, double dx, double dy, gpointer data)
-{
-  BwChemView *self = data;
-  GtkAdjustment *adj = gtk_scrolled_window_get_vadjustment (self->scroller);
-  GdkModifierType mods = gtk_event_controller_get_current_event_state (GTK_EVENT_CONTROLLER (c));
-  double page, step, lo, hi, v;
-
-  (void) dx;
-  if ((mods & GDK_SHIFT_MASK) || dy == 0.0)
-    return FALSE;
-  page = gtk_adjustment_get_page_size (adj);
-  /* GTK's own wheel step for a page of this height (page^(2/3)), for discrete wheel clicks;
-   * a touchpad's smooth deltas are in pixels already. */
-  step = gtk_event_controller_scroll_get_unit (c) == GDK_SCROLL_UNIT_WHEEL ? pow (page, 2.0 / 3.0)
-                                                                           : 1.0;
-  lo = gtk_adjustment_get_lower (adj);
-  hi = gtk_adjustment_get_upper (adj) - page;
-  v = gtk_adjustment_get_value (adj) + dy * step;
-  gtk_adjustment_set_value (adj, CLAMP (v, lo, MAX (lo, hi)));
-  return TRUE;
-}
-
 static void
 bw_chem_view_init (BwChemView *self)
 {
@@ -1426,12 +1401,9 @@ bw_chem_view_init (BwChemView *self)
 
   gtk_widget_init_template (GTK_WIDGET (self));
   gtk_label_set_text (self->caution_label, _(BW_CAUTION_TEXT));
-  {
-    GtkEventController *wheel = gtk_event_controller_scroll_new (GTK_EVENT_CONTROLLER_SCROLL_VERTICAL);
-    gtk_event_controller_set_propagation_phase (wheel, GTK_PHASE_CAPTURE);
-    g_signal_connect (wheel, "scroll", G_CALLBACK (results_scroll), self);
-    gtk_widget_add_controller (GTK_WIDGET (self->results_scroller), wheel);
-  }
+  /* The wheel over the sideways-scrolling tables moves the page, as it does anywhere else on
+   * it; Shift+wheel scrolls the tables. */
+  bw_wheel_forward_vertical (self->results_scroller, self->scroller);
   for (guint i = 0; i < N_CF; i++)
     row = attach_field (self, row, (ChemFieldId) i);
 

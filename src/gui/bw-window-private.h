@@ -58,7 +58,15 @@ struct _BwWindow
   GtkGrid *editor_grid;
   GtkLabel *results_heading;
   GtkToggleButton *every_case_toggle;
+  /* The results table: the quantity column (results_names) stays put beside the load-case
+   * columns (results_grid), which scroll sideways in results_sideways; results_scroller scrolls
+   * both up and down. results_rows holds one vertical size group per row, which keeps the two
+   * grids' rows the same height. */
+  GtkScrolledWindow *results_scroller;
+  GtkScrolledWindow *results_sideways;
+  GtkGrid *results_names;
   GtkGrid *results_grid;
+  GPtrArray *results_rows;
   /* The results table's shape (unit, columns, rows and their checks) when last built, and its
    * labels in the order they were made: an edit that keeps the shape updates them in place. */
   char *results_shape;

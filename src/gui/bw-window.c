@@ -4,6 +4,7 @@
 
 #include "gui/bw-window.h"
 #include "gui/bw-help.h"
+#include "gui/bw-level-cell.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -16,6 +17,7 @@
 #include "gui/bw-locale.h"
 #include "gui/bw-report-dialog.h"
 #include "gui/bw-review-view.h"
+#include "gui/bw-wheel.h"
 #include "gui/bw-window-private.h"
 #include "io/bw-criteria-xml.h"
 #include "io/bw-project-xml.h"
@@ -699,6 +701,23 @@ pass_label (ResultsPass *p, const char *text, GtkLabel **existing)
   return l;
 }
 
+/* Places W, a new cell of the table, at column COL and row ROW: column 0 in the quantity grid,
+ * the rest in the sideways-scrolling grid; the row's size group keeps both grids' rows level. */
+static void
+attach_cell (ResultsPass *p, GtkWidget *w, int col, int row)
+{
+  BwWindow *self = p->self;
+  GtkWidget *level = bw_level_cell_new (w);
+
+  while (self->results_rows->len <= (guint) row)
+    g_ptr_array_add (self->results_rows, gtk_size_group_new (GTK_SIZE_GROUP_VERTICAL));
+  gtk_size_group_add_widget (g_ptr_array_index (self->results_rows, row), level);
+  if (col == 0)
+    gtk_grid_attach (self->results_names, level, 0, row, 1, 1);
+  else
+    gtk_grid_attach (self->results_grid, level, col - 1, row, 1, 1);
+}
+
 static GtkWidget *
 cell (ResultsPass *p, int col, int row, const char *text, const char *css, double xalign)
 {
@@ -711,7 +730,7 @@ cell (ResultsPass *p, int col, int row, const char *text, const char *css, doubl
       gtk_label_set_selectable (made, FALSE);
       if (css && strcmp (css, "bw-governing") != 0)
         gtk_widget_add_css_class (GTK_WIDGET (made), css);
-      gtk_grid_attach (p->self->results_grid, GTK_WIDGET (made), col, row, 1, 1);
+      attach_cell (p, GTK_WIDGET (made), col, row);
     }
   /* Only the governing mark changes from one edit to the next. */
   if (css == NULL || strcmp (css, "bw-governing") == 0)
@@ -741,7 +760,7 @@ value_cell (ResultsPass *p, int col, int row, const char *value, const char *cas
       gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_v));
       gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_c));
       g_object_set_data (G_OBJECT (box), "bw-text", made_v);
-      gtk_grid_attach (p->self->results_grid, box, col, row, 1, 1);
+      attach_cell (p, box, col, row);
     }
   class_exclusive (GTK_WIDGET (v), governs ? "bw-governing" : NULL, governing, 1);
 }
@@ -822,7 +841,6 @@ results_shape (BwWindow *self, int e, gboolean every)
 static void
 results_rebuild (BwWindow *self)
 {
-  GtkGrid *g = self->results_grid;
   const int e = element_of (self, self->selected_id);
   const gboolean every = gtk_toggle_button_get_active (self->every_case_toggle);
   const BwElementResult *el;
@@ -835,7 +853,9 @@ results_rebuild (BwWindow *self)
     pass.reuse = TRUE;
   else
     {
-      grid_clear (g);
+      grid_clear (self->results_names);
+      grid_clear (self->results_grid);
+      g_ptr_array_set_size (self->results_rows, 0);
       g_ptr_array_set_size (self->results_labels, 0);
       g_free (self->results_shape);
       self->results_shape = g_steal_pointer (&shape);
@@ -888,10 +908,10 @@ results_rebuild (BwWindow *self)
           qbox = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
           gtk_label_set_xalign (qlabel, 0);
           gtk_label_set_wrap (qlabel, TRUE);
-          gtk_label_set_max_width_chars (qlabel, 17);
+          gtk_label_set_max_width_chars (qlabel, 24);
           gtk_box_append (GTK_BOX (qbox), GTK_WIDGET (qlabel));
           g_object_set_data (G_OBJECT (qbox), "bw-text", qlabel);
-          gtk_grid_attach (g, qbox, 0, row, 1, 1);
+          attach_cell (&pass, qbox, 0, row);
         }
       for (guint i = 0; self->checks && i < self->checks->len; i++)
         {
@@ -972,37 +992,57 @@ results_rebuild (BwWindow *self)
   g_assert (!pass.reuse || pass.next == self->results_labels->len);
 }
 
-GtkWidget *
-bw_window_get_results_grid (BwWindow *self)
+/* The widget at column COL, row ROW of the results table (column 0 is the quantity). */
+static GtkWidget *
+results_child_at (BwWindow *self, int col, int row)
 {
+  GtkWidget *level = col == 0 ? gtk_grid_get_child_at (self->results_names, 0, row)
+                               : gtk_grid_get_child_at (self->results_grid, col - 1, row);
+
+  return level ? bw_level_cell_get_child (BW_LEVEL_CELL (level)) : NULL;
+}
+
+GtkWidget *
+bw_window_get_results_cell (BwWindow *self, int col, int row)
+{
+  GtkWidget *w;
+
   g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
-  return GTK_WIDGET (self->results_grid);
+  w = results_child_at (self, col, row);
+  if (w && !GTK_IS_LABEL (w))
+    w = g_object_get_data (G_OBJECT (w), "bw-text");
+  return w;
 }
 
 char *
 bw_window_dup_results_text (BwWindow *self)
 {
   GString *s = g_string_new (NULL);
-  int rows = 0, cols = 0;
+  int rows = 0, cols = 1;
 
   g_return_val_if_fail (BW_IS_WINDOW (self), NULL);
+  for (GtkWidget *c = gtk_widget_get_first_child (GTK_WIDGET (self->results_names)); c;
+       c = gtk_widget_get_next_sibling (c))
+    {
+      int row;
+      gtk_grid_query_child (self->results_names, c, NULL, &row, NULL, NULL);
+      rows = MAX (rows, row + 1);
+    }
   for (GtkWidget *c = gtk_widget_get_first_child (GTK_WIDGET (self->results_grid)); c;
        c = gtk_widget_get_next_sibling (c))
     {
       int col, row;
       gtk_grid_query_child (self->results_grid, c, &col, &row, NULL, NULL);
       rows = MAX (rows, row + 1);
-      cols = MAX (cols, col + 1);
+      cols = MAX (cols, col + 2);
     }
   for (int r = 0; r < rows; r++)
     {
       for (int c = 0; c < cols; c++)
         {
-          GtkWidget *w = gtk_grid_get_child_at (self->results_grid, c, r);
+          GtkWidget *w = bw_window_get_results_cell (self, c, r);
           if (c)
             g_string_append_c (s, '\t');
-          if (w && !GTK_IS_LABEL (w) && g_object_get_data (G_OBJECT (w), "bw-text"))
-            w = g_object_get_data (G_OBJECT (w), "bw-text");
           if (GTK_IS_LABEL (w))
             {
               g_autofree char *t = g_strdup (gtk_label_get_text (GTK_LABEL (w)));
@@ -1604,6 +1644,7 @@ bw_window_finalize (GObject *object)
   g_clear_pointer (&self->fields, g_ptr_array_unref);
   g_clear_pointer (&self->basis_fields, g_ptr_array_unref);
   g_clear_pointer (&self->results_labels, g_ptr_array_unref);
+  g_clear_pointer (&self->results_rows, g_ptr_array_unref);
   g_clear_pointer (&self->results_shape, g_free);
   g_clear_pointer (&self->results, bw_results_free);
   g_clear_pointer (&self->pending, bw_results_free);
@@ -1654,6 +1695,9 @@ bw_window_class_init (BwWindowClass *klass)
   BIND (editor_grid);
   BIND (results_heading);
   BIND (every_case_toggle);
+  BIND (results_scroller);
+  BIND (results_sideways);
+  BIND (results_names);
   BIND (results_grid);
   BIND (checks_summary);
   BIND (checks_list);
@@ -1714,6 +1758,8 @@ bw_window_init (BwWindow *self)
   self->project = blank_project ();
   self->stack = bw_edit_stack_new ();
   self->results_labels = g_ptr_array_new ();
+  self->results_rows = g_ptr_array_new_with_free_func (g_object_unref);
+  bw_wheel_forward_vertical (self->results_sideways, self->results_scroller);
   self->fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
   self->basis_fields = g_ptr_array_new_with_free_func ((GDestroyNotify) _bw_field_free);
   self->units = BW_UNIT_SYSTEM_SI;

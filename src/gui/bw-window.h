@@ -57,8 +57,10 @@ GtkWidget *bw_window_get_field_error (BwWindow *self, const char *field_id);
 /* The checks list (a GtkListBox, one row per check) and the navigator list. */
 GtkWidget *bw_window_get_checks_list (BwWindow *self);
 GtkWidget *bw_window_get_navigator (BwWindow *self);
-/* The results table of the selected unit (a GtkGrid: quantities in column 0, values after). */
-GtkWidget *bw_window_get_results_grid (BwWindow *self);
+/* The label at column COL, row ROW of the selected unit's results table (row 0 holds the
+ * headings, column 0 the quantities and their criteria, the columns after it the values);
+ * NULL where there is none. */
+GtkWidget *bw_window_get_results_cell (BwWindow *self, int col, int row);
 /* The text of the results table for the selected unit, row by row (for tests). */
 char *bw_window_dup_results_text (BwWindow *self);
 

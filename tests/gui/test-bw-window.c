@@ -125,17 +125,12 @@ END_TEST
 static GtkLabel *
 results_value_label (BwWindow *w, const char *row_text, int col)
 {
-  GtkGrid *g = GTK_GRID (bw_window_get_results_grid (w));
-
   for (int r = 1; r < 200; r++)
     {
-      GtkWidget *q = gtk_grid_get_child_at (g, 0, r), *v;
-      GtkWidget *ql = q ? g_object_get_data (G_OBJECT (q), "bw-text") : NULL;
+      GtkWidget *ql = bw_window_get_results_cell (w, 0, r), *v;
       if (ql == NULL || strstr (gtk_label_get_text (GTK_LABEL (ql)), row_text) == NULL)
         continue;
-      v = gtk_grid_get_child_at (g, col, r);
-      if (v && !GTK_IS_LABEL (v))
-        v = g_object_get_data (G_OBJECT (v), "bw-text");
+      v = bw_window_get_results_cell (w, col, r);
       return v ? GTK_LABEL (v) : NULL;
     }
   return NULL;
@@ -621,6 +616,73 @@ START_TEST (test_every_case_table)
 }
 END_TEST
 
+/* The grid child that holds results cell COL, ROW (the label, or the box it sits in). */
+static GtkWidget *
+results_cell_box (BwWindow *w, int col, int row)
+{
+  GtkWidget *c = bw_window_get_results_cell (w, col, row);
+
+  while (c && !GTK_IS_GRID (gtk_widget_get_parent (c)))
+    c = gtk_widget_get_parent (c);
+  return c;
+}
+
+/* Every load case at 1024 px: the load-case columns scroll sideways under a quantity column
+ * that stays in view, and each row of values stays level with its quantity. */
+START_TEST (test_every_case_quantity_column_stays)
+{
+  BwWindow *w = demo_window ();
+  GtkWidget *name, *sideways;
+  GtkAdjustment *adj;
+  graphene_rect_t before, after, r;
+  int rows = 0, cols = 0;
+
+  gtk_window_set_default_size (GTK_WINDOW (w), 1024, 700);
+  bw_window_select_unit (w, "north-floc-2");
+  gtk_toggle_button_set_active (GTK_TOGGLE_BUTTON (bw_window_get_field_widget (w, "every-case")), TRUE);
+  bw_gui_test_pump (100);
+  ck_assert_int_le (gtk_widget_get_width (GTK_WIDGET (w)), 1024);
+  while (bw_window_get_results_cell (w, 0, rows))
+    rows++;
+  while (bw_window_get_results_cell (w, cols, 0))
+    cols++;
+  ck_assert_int_gt (rows, 5);
+  ck_assert_int_gt (cols, 10);
+  for (int row = 0; row < rows; row++)
+    {
+      graphene_rect_t q;
+      ck_assert (gtk_widget_compute_bounds (results_cell_box (w, 0, row), GTK_WIDGET (w), &q));
+      for (int col = 1; col < cols; col++)
+        {
+          GtkWidget *v = results_cell_box (w, col, row);
+          if (v == NULL)
+            continue;
+          ck_assert (gtk_widget_compute_bounds (v, GTK_WIDGET (w), &r));
+          ck_assert_msg (fabs (r.origin.y - q.origin.y) < 1.0 && fabs (r.size.height - q.size.height) < 1.0,
+                         "row %d column %d: value at y %g h %g, quantity at y %g h %g", row, col,
+                         r.origin.y, r.size.height, q.origin.y, q.size.height);
+        }
+    }
+  /* The table is wider than its pane, so the case columns scroll; the quantities do not. */
+  name = results_cell_box (w, 0, 1);
+  sideways = gtk_widget_get_ancestor (results_cell_box (w, 1, 1), GTK_TYPE_SCROLLED_WINDOW);
+  ck_assert (!gtk_widget_is_ancestor (name, sideways));
+  adj = gtk_scrolled_window_get_hadjustment (GTK_SCROLLED_WINDOW (sideways));
+  ck_assert_double_gt (gtk_adjustment_get_upper (adj), gtk_adjustment_get_page_size (adj));
+  ck_assert (gtk_widget_compute_bounds (name, GTK_WIDGET (w), &before));
+  gtk_adjustment_set_value (adj, gtk_adjustment_get_upper (adj) - gtk_adjustment_get_page_size (adj));
+  bw_gui_test_pump (50);
+  ck_assert (gtk_widget_compute_bounds (name, GTK_WIDGET (w), &after));
+  ck_assert_double_eq (after.origin.x, before.origin.x);
+  ck_assert_double_le (after.origin.x + after.size.width, gtk_widget_get_width (GTK_WIDGET (w)));
+  /* The last case's column has come into view, right of the quantity column. */
+  ck_assert (gtk_widget_compute_bounds (results_cell_box (w, cols - 1, 1), GTK_WIDGET (w), &r));
+  ck_assert_double_ge (r.origin.x, after.origin.x + after.size.width);
+  ck_assert_double_le (r.origin.x + r.size.width, gtk_widget_get_width (GTK_WIDGET (w)));
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_new_from_demo)
 {
   g_autofree char *demo = bw_gui_test_demo_path ();
@@ -780,6 +842,7 @@ window_suite (void)
   tcase_add_test (tc, test_close_prompts_when_modified);
   tcase_add_test (tc, test_about_repeats_caution);
   tcase_add_test (tc, test_every_case_table);
+  tcase_add_test (tc, test_every_case_quantity_column_stays);
   tcase_add_test (tc, test_new_from_demo);
   tcase_add_test (tc, test_criteria_and_case_widgets);
   tcase_add_test (tc, test_save_as_chooser);
