@@ -48,8 +48,9 @@ element_new (BwResults *r, const BwTrain *t, const BwProcessUnit *u, const BwPro
   e->type = type;
   e->id = g_strdup (stage ? stage->id : u->id);
   if (stage)
-    e->label = g_strdup_printf ("%s, stage %u (%s)", u->name, stage_number,
-                                bw_process_type_label (stage->type));
+    /* TRANSLATORS: flocculator name, stage number (stage type) */
+    e->label = g_strdup_printf (BW_ ("%s, stage %u (%s)"), u->name, stage_number,
+                                BW_ (bw_process_type_label (stage->type)));
   else
     e->label = g_strdup (u->name);
   e->values = g_new0 (BwQuantitySet, r->n_cases);

@@ -6,6 +6,7 @@
 #include "config.h"
 
 #include "gui/bw-autosize-dialog.h"
+#include "gui/bw-locale.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -236,7 +237,7 @@ static char *
 format_param (const BwParamSpec *spec, double v, BwUnitSystem units)
 {
   if (spec->type == BW_PARAM_QUANTITY)
-    return bw_units_format (v, spec->kind, units);
+    return bw_locale_format (v, spec->kind, units);
   if (spec->type == BW_PARAM_CHOICE && spec->choices)
     {
       guint n = 0;
@@ -286,7 +287,8 @@ append_values (GString *s, const BwAutosizeResult *r, const BwProcessUnit *u, in
 }
 
 /* A relative margin as a percentage to 0.1 % (a margin at the limit reads 0.0 %, not a
- * rounding residue such as 1e-14 %); '.' as the decimal point, like the engine's numbers. */
+ * rounding residue such as 1e-14 %); with the locale's decimal separator, like the other numbers
+ * the dialog shows. */
 static char *
 format_percent (double fraction)
 {
@@ -295,7 +297,7 @@ format_percent (double fraction)
 
   if (pct == 0)
     pct = 0; /* no "-0.0" */
-  return g_strdup (g_ascii_formatd (buf, sizeof buf, "%.1f", pct));
+  return bw_locale_localize_number (g_ascii_formatd (buf, sizeof buf, "%.1f", pct));
 }
 
 static void
@@ -338,8 +340,8 @@ results_rebuild (BwAutosizeDialog *self)
       const BwCandidate *c = &r->best[i];
       GtkWidget *row = gtk_list_box_row_new ();
       GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 2);
-      g_autofree char *obj = bw_units_format (c->objective, objective_kind (r->objective), units);
-      g_autofree char *vol = bw_units_format (c->volume_m3, BW_KIND_VOLUME, units);
+      g_autofree char *obj = bw_locale_format (c->objective, objective_kind (r->objective), units);
+      g_autofree char *vol = bw_locale_format (c->volume_m3, BW_KIND_VOLUME, units);
       g_autofree char *head = NULL;
       g_autoptr (GString) values = g_string_new (NULL);
       g_autoptr (GString) margins = g_string_new (NULL);

@@ -187,7 +187,7 @@ fmt (double si, BwQuantityKind kind, BwChemView *self)
 {
   if (!isfinite (si))
     return g_strdup ("—");
-  return bw_units_format (si, kind, bw_window_get_unit_system (self->window));
+  return bw_locale_format (si, kind, bw_window_get_unit_system (self->window));
 }
 
 static double *
@@ -273,7 +273,10 @@ field_text (ChemField *f)
   if (v == NULL || (cf_info[f->which].optional && *v == 0))
     return g_strdup ("");
   if (cf_info[f->which].kind == BW_KIND_NUMBER)
-    return bw_format_number (*v, 4);
+    {
+      g_autofree char *plain = bw_format_number (*v, 4);
+      return bw_locale_localize_number (plain);
+    }
   return fmt (*v, cf_info[f->which].kind, f->view);
 }
 
@@ -316,6 +319,7 @@ entry_commit (ChemField *f)
   const ChemFieldInfo *info = &cf_info[f->which];
   g_autofree char *now = NULL;
   g_autofree char *text = NULL;
+  g_autofree char *plain = NULL; /* TEXT with the locale's decimal comma read as a point */
   g_autoptr (GError) error = NULL;
   const BwUnit *du;
   BwProject *copy;
@@ -342,7 +346,8 @@ entry_commit (ChemField *f)
                                                              bw_window_get_unit_system (self->window));
   if (text[0] == '\0')
     v = 0; /* an optional input left empty: not given */
-  else if (!bw_units_parse (text, info->kind, du ? du->ascii : NULL, _(info->label), &v, &error))
+  else if (!bw_units_parse (plain = bw_locale_delocalize_number (text), info->kind, du ? du->ascii : NULL,
+                            _(info->label), &v, &error))
     {
       field_flag (f, error->message);
       return;
@@ -1189,7 +1194,9 @@ static char *
 target_text (BwChemView *self)
 {
   const double t = project (self)->chemistry.target_NTU;
-  return t > 0 ? bw_format_number (t, 4) : g_strdup ("");
+  g_autofree char *c = t > 0 ? bw_format_number (t, 4) : g_strdup ("");
+
+  return bw_locale_localize_number (c);
 }
 
 static void
@@ -1240,7 +1247,8 @@ target_commit (BwChemView *self)
     }
   if (text[0] != '\0')
     {
-      if (!bw_units_parse (text, BW_KIND_TURBIDITY, "NTU", _("target settled turbidity"), &v,
+      g_autofree char *plain = bw_locale_delocalize_number (text);
+      if (!bw_units_parse (plain, BW_KIND_TURBIDITY, "NTU", _("target settled turbidity"), &v,
                            &error))
         {
           target_flag (self, error->message);

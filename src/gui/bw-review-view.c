@@ -5,6 +5,7 @@
 #include "config.h"
 
 #include "gui/bw-review-view.h"
+#include "gui/bw-locale.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -168,9 +169,12 @@ citation_text (const BwCriterion *c)
 static char *
 percent_text (double rel)
 {
+  g_autofree char *t = NULL;
+
   if (fabs (rel * 100) < 0.05)
-    return g_strdup ("0.0 %");
-  return g_strdup_printf ("%+.1f %%", rel * 100);
+    return bw_locale_localize_number ("0.0 %");
+  t = g_strdup_printf ("%+.1f %%", rel * 100);
+  return bw_locale_localize_number (t);
 }
 
 static double
@@ -239,11 +243,14 @@ parse_tolerance (const char *text, double *out, GError **error)
 {
   double v;
 
-  if (!bw_units_parse (text, BW_KIND_FRACTION, "%", "tolerance", &v, error))
+  g_autofree char *plain = bw_locale_delocalize_number (text);
+
+  if (!bw_units_parse (plain, BW_KIND_FRACTION, "%", _("tolerance"), &v, error))
     return FALSE;
   if (!(v > 0) || v > 1)
     {
-      g_autofree char *got = g_strdup_printf ("%g %%", v * 100);
+      g_autofree char *c_got = g_strdup_printf ("%g %%", v * 100);
+      g_autofree char *got = bw_locale_localize_number (c_got);
       g_set_error (error, G_IO_ERROR, G_IO_ERROR_INVALID_ARGUMENT,
                    _("tolerance: must be greater than 0 %% and at most 100 %% (got %s)"), got);
       return FALSE;
@@ -360,7 +367,7 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
   gtk_widget_set_margin_end (GTK_WIDGET (box), 6);
   gtk_widget_set_margin_top (GTK_WIDGET (box), 4);
   gtk_widget_set_margin_bottom (GTK_WIDGET (box), 4);
-  badge = cell (top, kind_text (f), 12, FALSE);
+  badge = cell (top, kind_text (f), 15, FALSE);
   gtk_label_set_xalign (GTK_LABEL (badge), 0.5f);
   gtk_widget_add_css_class (badge, "bw-status");
   gtk_widget_add_css_class (badge, kind_status_class (f));
@@ -373,8 +380,8 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
   if (f->stated)
     {
       const BwQuantityInfo *info = bw_quantity_info (f->stated->quantity);
-      g_autofree char *sv = bw_units_format (f->stated->value, info->kind, units);
-      g_autofree char *cv = f->kind != BW_FINDING_NOT_COMPUTED ? bw_units_format (f->computed, info->kind, units)
+      g_autofree char *sv = bw_locale_format (f->stated->value, info->kind, units);
+      g_autofree char *cv = f->kind != BW_FINDING_NOT_COMPUTED ? bw_locale_format (f->computed, info->kind, units)
                                                                 : g_strdup ("—");
       g_autofree char *dv = f->kind != BW_FINDING_NOT_COMPUTED ? percent_text (f->relative_difference)
                                                                 : g_strdup ("—");
@@ -415,7 +422,7 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
     {
       const BwCheck *c = f->check;
       const BwQuantityKind qk = bw_quantity_info (c->criterion->quantity)->kind;
-      g_autofree char *value = bw_units_format (c->value, qk, units);
+      g_autofree char *value = bw_locale_format (c->value, qk, units);
       g_autofree char *limit = NULL;
       g_autofree char *cite = citation_text (c->criterion);
       g_autofree char *ct = case_text (r, c->governing_case);
@@ -423,7 +430,7 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
 
       if (c->has_limit)
         {
-          g_autofree char *lv = bw_units_format (c->limit, qk, units);
+          g_autofree char *lv = bw_locale_format (c->limit, qk, units);
           limit = g_strdup_printf ("%s %s%s", c->limit_is_max ? "≤" : "≥", lv,
                                    c->limit_is_required ? "" : _(" (preferred)"));
         }
@@ -470,7 +477,8 @@ findings_rebuild (BwReviewView *self)
   g_clear_pointer (&self->findings, g_array_unref);
   if (gtk_widget_has_css_class (GTK_WIDGET (self->tolerance_entry), "error") == FALSE)
     {
-      g_autofree char *t = bw_format_number (tol * 100, 4);
+      g_autofree char *c_t = bw_format_number (tol * 100, 4);
+      g_autofree char *t = bw_locale_localize_number (c_t);
       gtk_editable_set_text (GTK_EDITABLE (self->tolerance_entry), t);
     }
   if (r == NULL)
@@ -529,7 +537,7 @@ change_value (const BwChange *c, gboolean new_side, gboolean numeric, BwQuantity
   if (!has)
     return g_strdup ("—");
   if (numeric)
-    return bw_units_format (new_side ? c->new_value : c->old_value, kind, units);
+    return bw_locale_format (new_side ? c->new_value : c->old_value, kind, units);
   return g_strdup (new_side ? c->new_text : c->old_text);
 }
 

@@ -61,3 +61,33 @@ bw_gui_test_app (void)
     g_error ("register: %s", error->message);
   return app;
 }
+
+/* The first widget of TYPE in TOP's tree (TOP included), depth first; NULL when there is none. */
+static inline GtkWidget *
+bw_gui_test_find_widget (GtkWidget *top, GType type)
+{
+  if (G_TYPE_CHECK_INSTANCE_TYPE (top, type))
+    return top;
+  for (GtkWidget *c = gtk_widget_get_first_child (top); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = bw_gui_test_find_widget (c, type);
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+/* The first button under ROOT (ROOT included) whose label is LABEL; NULL when there is none. */
+static inline GtkWidget *
+bw_gui_test_find_button (GtkWidget *root, const char *label)
+{
+  if (GTK_IS_BUTTON (root) && g_strcmp0 (gtk_button_get_label (GTK_BUTTON (root)), label) == 0)
+    return root;
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = bw_gui_test_find_button (c, label);
+      if (found)
+        return found;
+    }
+  return NULL;
+}

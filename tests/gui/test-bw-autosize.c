@@ -81,21 +81,6 @@ wait_finished (BwAutosizeDialog *d)
   ck_assert_msg (!bw_autosize_dialog_is_searching (d), "the search did not finish");
 }
 
-/* The button below ROOT whose label is LABEL. */
-static GtkWidget *
-find_button (GtkWidget *root, const char *label)
-{
-  if (GTK_IS_BUTTON (root) && g_strcmp0 (gtk_button_get_label (GTK_BUTTON (root)), label) == 0)
-    return root;
-  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_button (c, label);
-      if (found)
-        return found;
-    }
-  return NULL;
-}
-
 /* Renders the dialog to BW_SHOT_DIR/NAME.png for people to look at; checks it is an image. */
 static void
 shoot (GtkWidget *w, const char *name)
@@ -165,7 +150,7 @@ START_TEST (test_action_follows_selection)
 
   /* The editor's Auto-size button follows the action: on with a unit selected, off with a
    * train row (no unit) selected; activating it then opens nothing. */
-  button = find_button (GTK_WIDGET (w), "Auto-_size…");
+  button = bw_gui_test_find_button (GTK_WIDGET (w), "Auto-_size…");
   ck_assert_ptr_nonnull (button);
   ck_assert (gtk_widget_get_sensitive (button));
   ck_assert (bw_window_select_unit (w, NULL));
@@ -243,7 +228,7 @@ START_TEST (test_search_lists_engine_designs_and_applies_once)
 
   /* Apply the first (selected) design through the Apply button. */
   table_before = bw_window_dup_results_text (w);
-  apply = find_button (GTK_WIDGET (d), "_Apply");
+  apply = bw_gui_test_find_button (GTK_WIDGET (d), "_Apply");
   ck_assert_ptr_nonnull (apply);
   ck_assert (gtk_widget_get_sensitive (apply));
   g_signal_emit_by_name (apply, "clicked");
@@ -411,7 +396,7 @@ START_TEST (test_no_design_says_why)
   msg = bw_autosize_dialog_get_message (d);
   ck_assert_msg (strstr (msg, expect->message) != NULL, "'%s' lacks '%s'", msg, expect->message);
   ck_assert_ptr_nonnull (strstr (msg, "no design in the searched space"));
-  ck_assert (!gtk_widget_get_sensitive (find_button (GTK_WIDGET (d), "_Apply")));
+  ck_assert (!gtk_widget_get_sensitive (bw_gui_test_find_button (GTK_WIDGET (d), "_Apply")));
   gtk_window_destroy (GTK_WINDOW (d));
   close_window (w);
 }

@@ -14,6 +14,7 @@
 #include "engine/bw-project.h"
 #include "gui/bw-chem-view.h"
 #include "gui/bw-locale.h"
+#include "gui/bw-review-view.h"
 
 static BwApplication *app;
 static char *tmpdir;
@@ -68,21 +69,6 @@ find_stack (GtkWidget *root)
       GtkStack *s = find_stack (c);
       if (s)
         return s;
-    }
-  return NULL;
-}
-
-/* The first button under ROOT whose label is LABEL. */
-static GtkWidget *
-find_button (GtkWidget *root, const char *label)
-{
-  if (GTK_IS_BUTTON (root) && g_strcmp0 (gtk_button_get_label (GTK_BUTTON (root)), label) == 0)
-    return root;
-  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_button (c, label);
-      if (found)
-        return found;
     }
   return NULL;
 }
@@ -176,8 +162,8 @@ START_TEST (test_engine_text_in_spanish)
   review = gtk_stack_get_child_by_name (stack, "review");
   ck_assert_ptr_nonnull (review);
   ck_assert_str_eq (gtk_stack_page_get_title (gtk_stack_get_page (stack, review)), "Revisión");
-  ck_assert_ptr_nonnull (find_button (GTK_WIDGET (w), "_Autodimensionar…"));
-  ck_assert_ptr_null (find_button (GTK_WIDGET (w), "Auto-_size…"));
+  ck_assert_ptr_nonnull (bw_gui_test_find_button (GTK_WIDGET (w), "_Autodimensionar…"));
+  ck_assert_ptr_null (bw_gui_test_find_button (GTK_WIDGET (w), "Auto-_size…"));
   close_window (w);
 }
 END_TEST
@@ -226,6 +212,16 @@ START_TEST (test_numbers_use_the_decimal_comma)
     ck_assert_msg (strstr (chem_text, "15,00 mg/L") != NULL, "%s", chem_text);
     ck_assert_msg (strstr (chem_text, "15.00 mg/L") == NULL, "%s", chem_text);
     ck_assert_msg (strstr (chem_text, "peak hour") == NULL, "%s", chem_text);
+    /* Its entries too: the demo's 30 mg/L design dose reads "30,00 mg/L", and "32,5 mg/L"
+     * typed there is 32.5 mg/L = 0.0325 kg/m³ (derived). */
+    e = bw_chem_view_get_field_widget (BW_CHEM_VIEW (chem), "dose:design");
+    ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (e)), "30,00 mg/L");
+    gtk_editable_set_text (GTK_EDITABLE (e), "32,5 mg/L");
+    g_signal_emit_by_name (e, "activate");
+    bw_gui_test_pump (5);
+    ck_assert (!gtk_widget_has_css_class (e, "error"));
+    ck_assert_double_eq_tol (bw_window_get_project (w)->chemistry.dose_design_kg_m3, 0.0325, 1e-12);
+    ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (e)), "32,50 mg/L");
   }
   close_window (w);
 }
@@ -303,6 +299,46 @@ START_TEST (test_model_and_loader_messages_in_spanish)
 }
 END_TEST
 
+/* The whole text of the labels under WIDGET, in tree order, separated by " | ". */
+static void
+append_labels (GtkWidget *widget, GString *out)
+{
+  if (GTK_IS_LABEL (widget))
+    g_string_append_printf (out, "%s | ", gtk_label_get_text (GTK_LABEL (widget)));
+  for (GtkWidget *c = gtk_widget_get_first_child (widget); c; c = gtk_widget_get_next_sibling (c))
+    append_labels (c, out);
+}
+
+/* The review page shows its numbers with the decimal comma, and reads one typed that way: the
+ * tolerance "1,000" % is one per cent, not a thousand. */
+START_TEST (test_review_numbers_in_spanish)
+{
+  BwWindow *w = demo_window ();
+  GtkWidget *v = bw_gui_test_find_widget (GTK_WIDGET (w), BW_TYPE_REVIEW_VIEW);
+  GtkWidget *tol;
+  g_autoptr (GString) shown = g_string_new (NULL);
+
+  ck_assert_ptr_nonnull (v);
+  bw_window_show_page (w, "review");
+  bw_gui_test_pump (20);
+  bw_review_view_refresh (BW_REVIEW_VIEW (v));
+  tol = bw_review_view_get_tolerance_entry (BW_REVIEW_VIEW (v));
+  ck_assert_double_eq (bw_window_get_project (w)->review_tolerance, 0.01);
+  ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (tol)), "1,000");
+  gtk_editable_set_text (GTK_EDITABLE (tol), "2,5");
+  g_signal_emit_by_name (tol, "activate");
+  bw_gui_test_pump (10);
+  ck_assert (!gtk_widget_has_css_class (tol, "error"));
+  ck_assert_double_eq_tol (bw_window_get_project (w)->review_tolerance, 0.025, 1e-12);
+  /* A criterion finding's value and limit (the demo's north rapid mix warns on detention). */
+  bw_review_view_refresh (BW_REVIEW_VIEW (v));
+  append_labels (bw_review_view_get_findings_list (BW_REVIEW_VIEW (v)), shown);
+  ck_assert_msg (strstr (shown->str, "7,000 s") != NULL, "no decimal comma in: %s", shown->str);
+  ck_assert_msg (strstr (shown->str, "7.000 s") == NULL, "decimal point left in: %s", shown->str);
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_locale_helpers)
 {
   char *s;
@@ -346,6 +382,7 @@ i18n_suite (void)
   tcase_add_test (tc, test_numbers_use_the_decimal_comma);
   tcase_add_test (tc, test_engine_messages_in_spanish);
   tcase_add_test (tc, test_model_and_loader_messages_in_spanish);
+  tcase_add_test (tc, test_review_numbers_in_spanish);
   tcase_add_test (tc, test_locale_helpers);
   suite_add_tcase (s, tc);
   return s;

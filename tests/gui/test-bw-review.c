@@ -48,24 +48,10 @@ close_window (BwWindow *w)
   bw_gui_test_pump (10);
 }
 
-static GtkWidget *
-find_widget (GtkWidget *top, GType type)
-{
-  if (G_TYPE_CHECK_INSTANCE_TYPE (top, type))
-    return top;
-  for (GtkWidget *c = gtk_widget_get_first_child (top); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_widget (c, type);
-      if (found)
-        return found;
-    }
-  return NULL;
-}
-
 static BwReviewView *
 review_of (BwWindow *w)
 {
-  GtkWidget *v = find_widget (GTK_WIDGET (w), BW_TYPE_REVIEW_VIEW);
+  GtkWidget *v = bw_gui_test_find_widget (GTK_WIDGET (w), BW_TYPE_REVIEW_VIEW);
 
   ck_assert_ptr_nonnull (v);
   bw_window_show_page (w, "review");
@@ -647,8 +633,8 @@ START_TEST (test_report_letter_and_preparer)
 
   ck_assert (gtk_widget_activate_action (GTK_WIDGET (w), "win.export-report", NULL));
   d = wait_dialog (w);
-  gtk_drop_down_set_selected (GTK_DROP_DOWN (find_widget (GTK_WIDGET (d), GTK_TYPE_DROP_DOWN)), 1);
-  prep = find_widget (GTK_WIDGET (d), GTK_TYPE_ENTRY);
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (bw_gui_test_find_widget (GTK_WIDGET (d), GTK_TYPE_DROP_DOWN)), 1);
+  prep = bw_gui_test_find_widget (GTK_WIDGET (d), GTK_TYPE_ENTRY);
   gtk_editable_set_text (GTK_EDITABLE (prep), "R. Okonkwo-Hale, P.Eng. (fictional)");
   wait_dialog (w);
   bw_report_dialog_export_to (d, pdf);
@@ -734,7 +720,7 @@ START_TEST (test_screenshots)
   nav_w = gtk_widget_get_width (bw_window_get_navigator (w));
   g_printerr ("review page minimum width %d px, navigator %d px\n", view_min, nav_w);
   {
-    GtkWidget *sw = find_widget (GTK_WIDGET (w), GTK_TYPE_STACK_SWITCHER);
+    GtkWidget *sw = bw_gui_test_find_widget (GTK_WIDGET (w), GTK_TYPE_STACK_SWITCHER);
     int m = 0, wm = 0;
     gtk_widget_measure (sw, GTK_ORIENTATION_HORIZONTAL, -1, &m, NULL, NULL, NULL);
     gtk_widget_measure (GTK_WIDGET (w), GTK_ORIENTATION_HORIZONTAL, -1, &wm, NULL, NULL, NULL);
