@@ -8,6 +8,7 @@
 #include "config.h"
 
 #include "draw/bw-chart.h"
+#include "draw/bw-labels.h"
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
@@ -350,7 +351,11 @@ text_layout (const Ctx *c, const char *text, double size, gboolean bold)
     pango_font_description_set_weight (fd, PANGO_WEIGHT_BOLD);
   pango_layout_set_font_description (l, fd);
   pango_font_description_free (fd);
-  pango_layout_set_text (l, text ? text : "", -1);
+  {
+    /* The chart's numbers with the reader's decimal separator (bw_label_number). */
+    g_autofree char *shown = bw_label_number (text ? text : "");
+    pango_layout_set_text (l, shown, -1);
+  }
   return l;
 }
 

@@ -7,6 +7,8 @@
 #include "draw/bw-labels.h"
 
 #include <glib/gi18n-lib.h>
+#include <locale.h>
+#include <string.h>
 
 const char *
 bw_label_text (const char *label)
@@ -70,4 +72,56 @@ bw_label_load_case (const BwLoadCase *c)
    * firm capacity"). */
   return g_strdup_printf (_("%s, %s, %s"), bw_label_flow_kind (c->flow),
                           bw_label_temp_kind (c->temp), bw_label_service_state (c->service));
+}
+
+const char *
+bw_label_decimal_point (void)
+{
+  const struct lconv *lc = localeconv ();
+
+  return lc && lc->decimal_point && lc->decimal_point[0] ? lc->decimal_point : ".";
+}
+
+char *
+bw_label_number (const char *text)
+{
+  const char *dp = bw_label_decimal_point ();
+  GString *s;
+
+  g_return_val_if_fail (text != NULL, NULL);
+  if (strcmp (dp, ".") == 0)
+    return g_strdup (text);
+  s = g_string_sized_new (strlen (text) + 4);
+  for (const char *p = text; *p; p++)
+    {
+      if (*p == '.' && p > text && g_ascii_isdigit (p[-1]) && g_ascii_isdigit (p[1]))
+        g_string_append (s, dp);
+      else
+        g_string_append_c (s, *p);
+    }
+  return g_string_free (s, FALSE);
+}
+
+char *
+bw_label_quantity (double value_si, BwQuantityKind kind, BwUnitSystem system)
+{
+  g_autofree char *c = bw_units_format (value_si, kind, system);
+
+  return bw_label_number (c);
+}
+
+const char *
+bw_label_coagulant (BwCoagulantKind kind)
+{
+  static const char *const labels[] = {
+    [BW_COAGULANT_ALUM] = N_("alum, Al₂(SO₄)₃·nH₂O"),
+    [BW_COAGULANT_FERRIC_CHLORIDE] = N_("ferric chloride, FeCl₃"),
+    [BW_COAGULANT_FERRIC_SULFATE] = N_("ferric sulfate, Fe₂(SO₄)₃"),
+    [BW_COAGULANT_PACL] = N_("polyaluminium chloride (PACl)"),
+    [BW_COAGULANT_USER] = N_("user-defined coagulant"),
+  };
+
+  if ((guint) kind >= G_N_ELEMENTS (labels) || labels[kind] == NULL)
+    return bw_coagulant_kind_name (kind);
+  return _(labels[kind]);
 }

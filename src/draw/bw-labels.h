@@ -6,10 +6,12 @@
 
 #include <glib.h>
 
+#include "engine/bw-chemistry.h"
 #include "engine/bw-criteria.h"
 #include "engine/bw-params.h"
 #include "engine/bw-project.h"
 #include "engine/bw-quantity.h"
+#include "engine/bw-units.h"
 
 G_BEGIN_DECLS
 
@@ -28,5 +30,18 @@ const char *bw_label_temp_kind (BwTempKind kind);
 const char *bw_label_service_state (BwServiceState state);
 /* "maximum day, coldest, firm capacity", composed in the reader's language. A new string. */
 char *bw_label_load_case (const BwLoadCase *c);
+
+/* "alum, Al₂(SO₄)₃·nH₂O", "ferric chloride, FeCl₃", ...: a coagulant product, translated.
+ * Borrowed. */
+const char *bw_label_coagulant (BwCoagulantKind kind);
+
+/* The decimal separator of the current LC_NUMERIC locale ("." in C, "," in es_ES). Borrowed. */
+const char *bw_label_decimal_point (void);
+/* TEXT as the engine formats numbers (a '.' decimal point) with every '.' that sits between two
+ * digits replaced by the locale's separator, for reading: "1.5 m" is "1,5 m" in es_ES. The CLI
+ * runs with LC_NUMERIC "C", so its drawings keep the point. A new string. */
+char *bw_label_number (const char *text);
+/* bw_units_format of VALUE_SI in SYSTEM, with the locale's separator as above. A new string. */
+char *bw_label_quantity (double value_si, BwQuantityKind kind, BwUnitSystem system);
 
 G_END_DECLS

@@ -499,13 +499,22 @@ doc_chart (Doc *d, BwChart *chart, double h, const char *caption)
 static char *
 fmt (double v, BwQuantityKind kind, BwUnitSystem units)
 {
-  return bw_units_format (v, kind, units);
+  return bw_label_quantity (v, kind, units);
+}
+
+/* A plain number to SIG significant figures, with the reader's decimal separator. */
+static char *
+number_text (double v, int sig)
+{
+  g_autofree char *c = bw_format_number (v, sig);
+
+  return bw_label_number (c);
 }
 
 static char *
 q_fmt (BwQuantity q, double v, BwUnitSystem units)
 {
-  return bw_units_format (v, bw_quantity_info (q)->kind, units);
+  return bw_label_quantity (v, bw_quantity_info (q)->kind, units);
 }
 
 static char *
@@ -717,7 +726,7 @@ design_basis (Doc *d, const Report *rp)
   table_row_take (t, g_strdup (_("warmest water")), fmt (b->temperature_K[BW_TEMP_WARMEST], BW_KIND_TEMPERATURE, rp->units));
   table_row_take (t, g_strdup (_("raw-water turbidity")), fmt (b->turbidity_NTU, BW_KIND_TURBIDITY, rp->units));
   table_row_take (t, g_strdup (_("raw-water alkalinity (as CaCO₃)")), fmt (b->alkalinity_kg_m3, BW_KIND_CONCENTRATION, rp->units));
-  table_row_take (t, g_strdup (_("raw-water pH")), bw_format_number (b->ph, 3));
+  table_row_take (t, g_strdup (_("raw-water pH")), number_text (b->ph, 3));
   doc_table (d, t);
   table_free (t);
 
@@ -728,11 +737,11 @@ design_basis (Doc *d, const Report *rp)
     {
       const BwChemistryBasis *c = &p->chemistry;
       t = table_new (2, w2, f2, 9.5, _("Item"), _("Value"));
-      table_row_take (t, g_strdup (_("coagulant")), g_strdup (bw_coagulant_kind_name (c->kind)));
+      table_row_take (t, g_strdup (_("coagulant")), g_strdup (bw_label_coagulant (c->kind)));
       table_row_take (t, g_strdup (_("dose, minimum")), fmt (c->dose_min_kg_m3, BW_KIND_CONCENTRATION, rp->units));
       table_row_take (t, g_strdup (_("dose, design")), fmt (c->dose_design_kg_m3, BW_KIND_CONCENTRATION, rp->units));
       table_row_take (t, g_strdup (_("dose, maximum")), fmt (c->dose_max_kg_m3, BW_KIND_CONCENTRATION, rp->units));
-      table_row_take (t, g_strdup (_("suspended solids per NTU")), bw_format_number (c->ss_factor, 3));
+      table_row_take (t, g_strdup (_("suspended solids per NTU")), number_text (c->ss_factor, 3));
       if (c->residual_target_kg_m3 > 0)
         table_row_take (t, g_strdup (_("residual alkalinity to keep")),
                         fmt (c->residual_target_kg_m3, BW_KIND_CONCENTRATION, rp->units));
@@ -786,7 +795,7 @@ param_value (const BwParamSpec *s, double v, BwUnitSystem units)
         return g_strdup (_("not given"));
       return g_strdup_printf ("%.0f", v);
     case BW_PARAM_CHOICE:
-      return g_strdup (nz (bw_param_choice_name (s, (int) v), "—"));
+      return g_strdup (nz (bw_label_choice (s, (int) v), "—"));
     default:
       return g_strdup ("—");
     }
@@ -809,8 +818,8 @@ inputs_table (Doc *d, const Report *rp, const BwProcessUnit *u, gboolean counts)
                       g_strdup (_("out of service in the firm-capacity cases")));
     }
   for (guint i = 0; i < n; i++)
-    table_row_take (t, g_strdup (specs[i].label), param_value (&specs[i], u->values[i], rp->units),
-                    g_strdup (specs[i].help ? specs[i].help : ""));
+    table_row_take (t, g_strdup (bw_label_text (specs[i].label)), param_value (&specs[i], u->values[i], rp->units),
+                    g_strdup (specs[i].help ? bw_label_text (specs[i].help) : ""));
   doc_table (d, t);
   table_free (t);
 }
@@ -1506,9 +1515,12 @@ stated_case (const Review *rv, const BwFinding *f)
 static char *
 diff_text (double rel)
 {
+  g_autofree char *t = NULL;
+
   if (fabs (rel * 100) < 0.05)
-    return g_strdup ("0.0 %");
-  return g_strdup_printf ("%+.1f %%", rel * 100);
+    return bw_label_number ("0.0 %");
+  t = g_strdup_printf ("%+.1f %%", rel * 100);
+  return bw_label_number (t);
 }
 
 static void
@@ -1630,8 +1642,12 @@ bw_review_report_write_pdf (const BwProject *p, const BwResults *r, GArray *find
     g_free (running);
     running = g_strdup_printf (_("%s · review findings"), rt);
   }
-  footer = g_strdup_printf (_("Basinwright %s · criteria %s · tolerance %g %%"), PACKAGE_VERSION, set->id,
-                            tolerance * 100);
+  {
+    g_autofree char *c_tol = g_strdup_printf ("%g", tolerance * 100);
+    g_autofree char *tol = bw_label_number (c_tol);
+    footer = g_strdup_printf (_("Basinwright %s · criteria %s · tolerance %s %%"), PACKAGE_VERSION, set->id,
+                              tol);
+  }
   title = g_strdup_printf (_("Review findings: %s"), nz (p->name, _("project")));
   return write_document (paper, path, title, NULL, running, footer, review_body, &rv, error);
 }

@@ -732,7 +732,11 @@ text (Ctx *c, double x, double y, const char *s, double size, gboolean bold, dou
   pango_font_description_set_absolute_size (fd, size * PANGO_SCALE);
   pango_font_description_set_weight (fd, bold ? PANGO_WEIGHT_BOLD : PANGO_WEIGHT_NORMAL);
   pango_layout_set_font_description (layout, fd);
-  pango_layout_set_text (layout, s, -1);
+  {
+    /* The drawing's numbers with the reader's decimal separator (bw_label_number). */
+    g_autofree char *shown = bw_label_number (s);
+    pango_layout_set_text (layout, shown, -1);
+  }
   pango_layout_get_pixel_extents (layout, &ink, &logical);
   b.w = logical.width;
   b.h = logical.height;
@@ -757,7 +761,11 @@ text_width_weight (Ctx *c, const char *s, double size, gboolean bold)
   pango_font_description_set_absolute_size (fd, size * PANGO_SCALE);
   pango_font_description_set_weight (fd, bold ? PANGO_WEIGHT_BOLD : PANGO_WEIGHT_NORMAL);
   pango_layout_set_font_description (layout, fd);
-  pango_layout_set_text (layout, s, -1);
+  {
+    /* The drawing's numbers with the reader's decimal separator (bw_label_number). */
+    g_autofree char *shown = bw_label_number (s);
+    pango_layout_set_text (layout, shown, -1);
+  }
   pango_layout_get_pixel_size (layout, &w, &h);
   pango_font_description_free (fd);
   g_object_unref (layout);
@@ -2835,7 +2843,11 @@ text_box (Ctx *c, double x, double y, double width, const char *s, double size, 
   pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
   pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
   pango_layout_set_height (layout, -max_lines);
-  pango_layout_set_text (layout, s, -1);
+  {
+    /* The drawing's numbers with the reader's decimal separator (bw_label_number). */
+    g_autofree char *shown = bw_label_number (s);
+    pango_layout_set_text (layout, shown, -1);
+  }
   pango_layout_get_pixel_size (layout, &w, &h);
   if (col.r >= 0)
     {

@@ -114,9 +114,6 @@ static const char *const alkali_labels[BW_N_ALKALIS] = { N_("lime, Ca(OH)₂"),
 /* Coagulant kinds a project takes, in dropdown order (bw_project_coagulant refuses the rest). */
 static const BwCoagulantKind kinds[] = { BW_COAGULANT_ALUM, BW_COAGULANT_FERRIC_CHLORIDE,
                                          BW_COAGULANT_FERRIC_SULFATE, BW_COAGULANT_PACL };
-static const char *const kind_labels[] = { N_("alum, Al₂(SO₄)₃·nH₂O"), N_("ferric chloride, FeCl₃"),
-                                           N_("ferric sulfate, Fe₂(SO₄)₃"),
-                                           N_("polyaluminium chloride (PACl)") };
 
 typedef struct
 {
@@ -447,10 +444,10 @@ attach_field (BwChemView *self, int row, ChemFieldId which)
     }
   else if (which == CF_KIND)
     {
-      const char *labels[G_N_ELEMENTS (kind_labels) + 1];
-      for (guint i = 0; i < G_N_ELEMENTS (kind_labels); i++)
-        labels[i] = _(kind_labels[i]);
-      labels[G_N_ELEMENTS (kind_labels)] = NULL;
+      const char *labels[G_N_ELEMENTS (kinds) + 1];
+      for (guint i = 0; i < G_N_ELEMENTS (kinds); i++)
+        labels[i] = bw_label_coagulant (kinds[i]);
+      labels[G_N_ELEMENTS (kinds)] = NULL;
       f->widget = gtk_drop_down_new_from_strings (labels);
       f->label = gtk_label_new (_(info->label));
       g_signal_connect (f->widget, "notify::selected", G_CALLBACK (kind_changed), f);

@@ -6,6 +6,8 @@
 
 #include "gui/bw-locale.h"
 
+#include "draw/bw-labels.h"
+
 #include <glib/gi18n.h>
 #include <locale.h>
 #include <string.h>
@@ -24,29 +26,13 @@ bw_locale_init (void)
 const char *
 bw_locale_decimal_point (void)
 {
-  const struct lconv *lc = localeconv ();
-
-  return lc && lc->decimal_point && lc->decimal_point[0] ? lc->decimal_point : ".";
+  return bw_label_decimal_point ();
 }
 
 char *
 bw_locale_localize_number (const char *text)
 {
-  const char *dp = bw_locale_decimal_point ();
-  GString *s;
-
-  g_return_val_if_fail (text != NULL, NULL);
-  if (strcmp (dp, ".") == 0)
-    return g_strdup (text);
-  s = g_string_sized_new (strlen (text) + 4);
-  for (const char *p = text; *p; p++)
-    {
-      if (*p == '.' && p > text && g_ascii_isdigit (p[-1]) && g_ascii_isdigit (p[1]))
-        g_string_append (s, dp);
-      else
-        g_string_append_c (s, *p);
-    }
-  return g_string_free (s, FALSE);
+  return bw_label_number (text);
 }
 
 char *
@@ -76,7 +62,5 @@ bw_locale_delocalize_number (const char *text)
 char *
 bw_locale_format (double value_si, BwQuantityKind kind, BwUnitSystem system)
 {
-  g_autofree char *c = bw_units_format (value_si, kind, system);
-
-  return bw_locale_localize_number (c);
+  return bw_label_quantity (value_si, kind, system);
 }
