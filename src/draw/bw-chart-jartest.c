@@ -6,6 +6,7 @@
 
 #include "draw/bw-chart-jartest.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -76,7 +77,7 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
   s = rec->series;
   if (!bw_jar_series_prepare (&s, &local))
     {
-      g_set_error (error, BW_ENGINE_ERROR, local->code, "jar test %s: %s", rec->id, local->message);
+      g_set_error (error, BW_ENGINE_ERROR, local->code, _("jar test %s: %s"), rec->id, local->message);
       return NULL;
     }
   if (s.has_mobility && !s.has_zeta)
@@ -85,27 +86,36 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
       if (!bw_water_properties (rec->temperature_K, &w, &local)
           || !bw_jar_series_zeta_from_mobility (&s, BW_ZETA_SMOLUCHOWSKI, 0, 0, &w, &local))
         {
-          g_set_error (error, BW_ENGINE_ERROR, local->code, "jar test %s: %s", rec->id,
+          g_set_error (error, BW_ENGINE_ERROR, local->code, _("jar test %s: %s"), rec->id,
                        local->message);
           return NULL;
         }
     }
   if (!bw_jar_analyse (&s, opt->target_NTU, threshold, &res, &local))
     {
-      g_set_error (error, BW_ENGINE_ERROR, local->code, "jar test %s: %s", rec->id, local->message);
+      g_set_error (error, BW_ENGINE_ERROR, local->code, _("jar test %s: %s"), rec->id, local->message);
       return NULL;
     }
 
   ch = bw_chart_new (BW_CHART_XY, NULL);
-  ch->title = g_strdup_printf ("Jar test: %s", rec->name && *rec->name ? rec->name : rec->id);
+  ch->title = g_strdup_printf (_("Jar test: %s"), rec->name && *rec->name ? rec->name : rec->id);
   {
     g_autofree char *t = bw_units_format (rec->temperature_K, BW_KIND_TEMPERATURE, system);
-    ch->subtitle = g_strdup_printf ("%u jars at %s; settled turbidity%s against coagulant dose",
-                                    s.n_jars, t, s.has_zeta ? " and zeta potential" : "");
+    if (s.has_zeta)
+      ch->subtitle = g_strdup_printf (ngettext ("%u jar at %s; settled turbidity and zeta potential "
+                                                "against coagulant dose",
+                                                "%u jars at %s; settled turbidity and zeta potential "
+                                                "against coagulant dose", s.n_jars),
+                                      s.n_jars, t);
+    else
+      ch->subtitle = g_strdup_printf (ngettext ("%u jar at %s; settled turbidity against coagulant dose",
+                                                "%u jars at %s; settled turbidity against coagulant dose",
+                                                s.n_jars),
+                                      s.n_jars, t);
   }
-  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, "Coagulant dose", ud->symbol);
+  bw_chart_axis_set (&ch->x, BW_AXIS_LINEAR, _("Coagulant dose"), ud->symbol);
   ch->x.include_zero = TRUE;
-  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, "Settled turbidity", "NTU");
+  bw_chart_axis_set (&ch->y, BW_AXIS_LINEAR, _("Settled turbidity"), "NTU");
   ch->y.include_zero = TRUE;
   ch->show_legend = TRUE;
 
@@ -116,7 +126,7 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
   if (res.has_window)
     {
       g_autofree char *lim = bw_units_format (threshold, BW_KIND_POTENTIAL, system);
-      g_autofree char *label = g_strdup_printf ("destabilised: |ζ| ≤ %s", lim);
+      g_autofree char *label = g_strdup_printf (_("destabilised: |ζ| ≤ %s"), lim);
       BwChartBand *zb;
       /* The doses of the window across the plot, and the |zeta| band on the right axis that
        * defines it (labelled there, clear of the chosen dose's label at the top). */
@@ -130,24 +140,24 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
     bw_chart_add_band (ch, TRUE, bw_unit_from_si (ud, opt->chosen_min_kg_m3),
                        bw_unit_from_si (ud, opt->chosen_max_kg_m3), NULL, BW_JARTEST_C_CHOSEN);
 
-  curve = bw_chart_add_series (ch, "Smooth fit (monotone cubic)", BW_SERIES_LINE,
+  curve = bw_chart_add_series (ch, _("Smooth fit (monotone cubic)"), BW_SERIES_LINE,
                                BW_JARTEST_C_TURBIDITY, BW_MARKER_NONE, BW_DASH_SOLID, TRUE);
   for (guint i = 0; i < BW_JARTEST_CURVE_POINTS; i++)
     {
       const double d = lo + (hi - lo) * i / (BW_JARTEST_CURVE_POINTS - 1);
       bw_chart_series_add (curve, bw_unit_from_si (ud, d), bw_jar_curve (&s, d));
     }
-  jars = bw_chart_add_series (ch, "Settled turbidity (jars)", BW_SERIES_LINE,
+  jars = bw_chart_add_series (ch, _("Settled turbidity (jars)"), BW_SERIES_LINE,
                               BW_JARTEST_C_TURBIDITY, BW_MARKER_CIRCLE, BW_DASH_SOLID, FALSE);
   for (guint i = 0; i < s.n_jars; i++)
     bw_chart_series_add (jars, bw_unit_from_si (ud, s.jars[i].dose_kg_m3), s.jars[i].turbidity_NTU);
 
   if (s.has_zeta)
     {
-      bw_chart_axis_set (&ch->y2, BW_AXIS_LINEAR, "Zeta potential", uz->symbol);
+      bw_chart_axis_set (&ch->y2, BW_AXIS_LINEAR, _("Zeta potential"), uz->symbol);
       ch->y2.include_zero = TRUE;
       ch->has_y2 = TRUE;
-      zeta = bw_chart_add_series (ch, "Zeta potential (right axis)", BW_SERIES_LINE,
+      zeta = bw_chart_add_series (ch, _("Zeta potential (right axis)"), BW_SERIES_LINE,
                                   BW_JARTEST_C_ZETA, BW_MARKER_SQUARE, BW_DASH_DASHED, TRUE);
       zeta->y2 = TRUE;
       for (guint i = 0; i < s.n_jars; i++)
@@ -168,10 +178,10 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
       if (res.has_target)
         {
           g_autofree char *d = fmt_dose (res.target_dose_kg_m3, system);
-          label = g_strdup_printf ("target %s: reached at %s", tt, d);
+          label = g_strdup_printf (_("target %s: reached at %s"), tt, d);
         }
       else
-        label = g_strdup_printf ("target %s: not reached in the doses tested", tt);
+        label = g_strdup_printf (_("target %s: not reached in the doses tested"), tt);
       t = bw_chart_add_rule (ch, FALSE, opt->target_NTU, label, BW_JARTEST_C_TARGET,
                              BW_DASH_DASHED);
       t->label_start = TRUE;
@@ -180,7 +190,7 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
   {
     g_autofree char *d = fmt_dose (res.optimum_dose_kg_m3, system);
     g_autofree char *t = bw_units_format (res.optimum_turbidity_NTU, BW_KIND_TURBIDITY, system);
-    g_autofree char *text = g_strdup_printf ("optimum %s (%s)", d, t);
+    g_autofree char *text = g_strdup_printf (_("optimum %s (%s)"), d, t);
     BwChartNote *n = bw_chart_add_note (ch, bw_unit_from_si (ud, res.optimum_dose_kg_m3),
                                         res.optimum_turbidity_NTU, text);
     n->ring = TRUE;
@@ -194,17 +204,17 @@ bw_chart_jartest (const BwJarTestRecord *rec, const BwJarChartOptions *opt, BwUn
         {
           g_autofree char *a = fmt_dose (opt->chosen_min_kg_m3, system);
           g_autofree char *b = fmt_dose (opt->chosen_max_kg_m3, system);
-          label = g_strdup_printf ("chosen %s (range %s to %s)", d, a, b);
+          label = g_strdup_printf (_("chosen %s (range %s to %s)"), d, a, b);
         }
       else
-        label = g_strdup_printf ("chosen %s", d);
+        label = g_strdup_printf (_("chosen %s"), d);
       BwChartRule *rule = bw_chart_add_rule (ch, TRUE, bw_unit_from_si (ud, opt->chosen_design_kg_m3),
                                              label, BW_JARTEST_C_CHOSEN, BW_DASH_SOLID);
       rule->label_start = FALSE; /* at the top, clear of the curve's low point */
     }
 
-  ch->footnote = g_strdup ("Curve through the jars (Fritsch & Carlson 1980). Preliminary: verify "
-                           "with a licensed engineer and the approving authority.");
+  ch->footnote = g_strdup (_("Curve through the jars (Fritsch & Carlson 1980). Preliminary: verify "
+                           "with a licensed engineer and the approving authority."));
   return g_steal_pointer (&ch);
 }
 
@@ -220,7 +230,7 @@ bw_chart_jartest_of_project (const BwProject *p, const char *jar_test_id, double
   if (r == NULL)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "jar test: no jar-test record with id '%s' in the project",
+                   _("jar test: no jar-test record with id '%s' in the project"),
                    jar_test_id ? jar_test_id : "(none)");
       return NULL;
     }

@@ -76,7 +76,7 @@ find_element (const BwResults *r, const char *id, int *index, GError **error)
         }
     }
   g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-               "unit: no unit or stage with id '%s' in the results", id ? id : "(none)");
+               _ ("unit: no unit or stage with id '%s' in the results"), id ? id : "(none)");
   return NULL;
 }
 
@@ -120,8 +120,8 @@ need_cases (const BwResults *r, int cold, int warm, GError **error)
   if (cold < 0 || warm < 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "load cases: the chart needs the design flow at the coldest and warmest "
-                   "temperature with all units in service (%u cases evaluated)", r->n_cases);
+                   _ ("load cases: the chart needs the design flow at the coldest and warmest "
+                   "temperature with all units in service (%u cases evaluated)"), r->n_cases);
       return FALSE;
     }
   return TRUE;
@@ -211,7 +211,7 @@ bw_chart_floc_taper (const BwProject *p, const BwResults *r, GArray *checks, con
   if (floc->type != BW_ELEMENT_FLOCCULATOR)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' is not a flocculator", floc_id);
+                   _ ("unit: '%s' is not a flocculator"), floc_id);
       return NULL;
     }
   if (!need_cases (r, cold, warm, error))
@@ -278,7 +278,7 @@ bw_chart_floc_taper (const BwProject *p, const BwResults *r, GArray *checks, con
   if (n == 0)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: flocculator '%s' has no stages", floc_id);
+                   _ ("unit: flocculator '%s' has no stages"), floc_id);
       return NULL;
     }
   if (first_stage >= 0)
@@ -349,7 +349,7 @@ bw_chart_settling_curves (const BwProject *p, const BwResults *r, const char *ba
   if (!is_basin (e) || !overflow_range (r, e, &ov_lo, &ov_hi, &c_hi))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' is not a settling basin with an overflow rate", basin_id);
+                   _ ("unit: '%s' is not a settling basin with an overflow rate"), basin_id);
       return NULL;
     }
   if (specific_gravity <= 0)
@@ -379,7 +379,7 @@ bw_chart_settling_curves (const BwProject *p, const BwResults *r, const char *ba
                                            (double) i / (SETTLING_POINTS - 1));
           if (!bw_settling_velocity (d, specific_gravity, T, BW_DRAG_CLIFT_GAUVIN, &res, error))
             {
-              g_prefix_error (error, "settling curve: ");
+              g_prefix_error (error, _ ("settling curve: "));
               return NULL;
             }
           bw_chart_series_add (s, to_display (ud, d), to_display (uv, res.velocity_m_s));
@@ -461,14 +461,14 @@ bw_chart_removal_curves (const BwProject *p, const BwResults *r, const char *bas
   if (!is_basin (e) || !overflow_range (r, e, &ov_lo, &ov_hi, &c_hi))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' is not a settling basin with an overflow rate", basin_id);
+                   _ ("unit: '%s' is not a settling basin with an overflow rate"), basin_id);
       return NULL;
     }
   vs = bw_process_unit_get (e->unit, "design-settling-velocity");
   if (!(vs > 0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "design settling velocity: '%s' has none, so no removal to chart", basin_id);
+                   _ ("design settling velocity: '%s' has none, so no removal to chart"), basin_id);
       return NULL;
     }
   x_max = MAX (2.0 * vs, 1.25 * ov_hi);
@@ -588,7 +588,7 @@ bw_chart_iso_removal (const BwProject *p, const BwResults *r, const char *basin_
   if (!is_basin (e) || !value_at (e, dc, BW_Q_OVERFLOW_RATE, &v0) || !(v0 > 0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' is not a settling basin with an overflow rate in the design case",
+                   _ ("unit: '%s' is not a settling basin with an overflow rate in the design case"),
                    basin_id);
       return NULL;
     }
@@ -596,8 +596,8 @@ bw_chart_iso_removal (const BwProject *p, const BwResults *r, const char *basin_
   if (rec == NULL)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "column test: no settling-column test applies to '%s', so no iso-removal "
-                   "chart (add one that names it in applies-to)", basin_id);
+                   _ ("column test: no settling-column test applies to '%s', so no iso-removal "
+                   "chart (add one that names it in applies-to)"), basin_id);
       return NULL;
     }
   if (!bw_column_test_record_column (rec, &col, error))
@@ -611,7 +611,7 @@ bw_chart_iso_removal (const BwProject *p, const BwResults *r, const char *basin_
     {
       g_autofree char *v = fmt (v0, BW_KIND_SURFACE_LOADING, system);
       g_set_error (error, BW_ENGINE_ERROR, local->code,
-                   "column test %s: at %s's overflow rate of %s: %s", rec->id, basin_id, v,
+                   _ ("column test %s: at %s's overflow rate of %s: %s"), rec->id, basin_id, v,
                    local->message);
       return NULL;
     }
@@ -740,7 +740,7 @@ unit_impeller (const BwProcessUnit *u, BwImpeller *imp, gboolean *baffled, GErro
   if (choice >= BW_N_IMPELLER_KINDS && !(imp->power_number > 0))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "power number: a custom impeller needs one");
+                   _ ("power number: a custom impeller needs one"));
       return FALSE;
     }
   *baffled = bw_process_unit_get (u, "baffles") == 0;
@@ -779,7 +779,7 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
   if (u->type != BW_PROCESS_RAPID_MIX && u->type != BW_STAGE_TURBINE)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' has no impeller (a rapid-mix tank or turbine stage has)", unit_id);
+                   _ ("unit: '%s' has no impeller (a rapid-mix tank or turbine stage has)"), unit_id);
       return NULL;
     }
   if (!need_cases (r, cold, warm, error) || !unit_impeller (u, &imp, &baffled, error))
@@ -787,7 +787,7 @@ bw_chart_impeller_power (const BwProject *p, const BwResults *r, GArray *checks,
   if (!value_at (e, cold, BW_Q_VOLUME, &volume) || !value_at (e, cold, BW_Q_POWER, &p_design))
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "unit: '%s' has no volume or power in the results", unit_id);
+                   _ ("unit: '%s' has no volume or power in the results"), unit_id);
       return NULL;
     }
   n_design = imp.speed_rev_s;
@@ -922,9 +922,12 @@ bw_chart_check_matrix (const BwProject *p, const BwResults *r, GArray *checks,
     }
   if (rows->len == 0)
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "checks: none applies to %s%s", train_id ? "train " : "the project",
-                   train_id ? train_id : "");
+      if (train_id)
+        g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                     _ ("checks: none applies to train %s"), train_id);
+      else
+        g_set_error_literal (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
+                             _ ("checks: none applies to the project"));
       return NULL;
     }
   g_array_sort (rows, row_cmp);

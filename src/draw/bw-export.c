@@ -9,6 +9,7 @@
 #include <cairo-pdf.h>
 #include <cairo-svg.h>
 #include <errno.h>
+#include <glib/gi18n-lib.h>
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
@@ -42,7 +43,7 @@ cairo_fail (cairo_status_t status, const char *path, GError **error)
 {
   g_set_error (error, BW_DRAW_ERROR,
                status == CAIRO_STATUS_WRITE_ERROR ? BW_DRAW_ERROR_WRITE : BW_DRAW_ERROR_CAIRO,
-               "%s: cannot write the drawing: %s", path, cairo_status_to_string (status));
+               _ ("%s: cannot write the drawing: %s"), path, cairo_status_to_string (status));
   return FALSE;
 }
 
@@ -63,7 +64,7 @@ export_with (PaintFn paint, gpointer data, BwExportFormat format, const char *pa
   if (format == BW_EXPORT_PNG && (width != floor (width) || height != floor (height)))
     {
       g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE,
-                   "size: a PNG needs whole pixels (got %g x %g)", width, height);
+                   _ ("size: a PNG needs whole pixels (got %g x %g)"), width, height);
       return FALSE;
     }
 
@@ -72,7 +73,7 @@ export_with (PaintFn paint, gpointer data, BwExportFormat format, const char *pa
   if (fd < 0)
     {
       const int e = errno;
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, "%s: cannot write the drawing: %s",
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, _ ("%s: cannot write the drawing: %s"),
                    path, g_strerror (e));
       return FALSE;
     }
@@ -122,7 +123,7 @@ export_with (PaintFn paint, gpointer data, BwExportFormat format, const char *pa
   if (!ok)
     {
       g_unlink (tmp);
-      g_prefix_error (error, "%s: ", path);
+      g_prefix_error (error, _ ("%s: "), path);
       return FALSE;
     }
   if (status != CAIRO_STATUS_SUCCESS)
@@ -134,7 +135,7 @@ export_with (PaintFn paint, gpointer data, BwExportFormat format, const char *pa
     {
       const int e = errno;
       g_unlink (tmp);
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, "%s: cannot write the drawing: %s",
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_WRITE, _ ("%s: cannot write the drawing: %s"),
                    path, g_strerror (e));
       return FALSE;
     }
@@ -183,7 +184,7 @@ bw_export_chart (const BwChart *chart, const BwStyle *style, BwExportFormat form
   if (width < BW_SKETCH_MIN_SIDE || height < BW_SKETCH_MIN_SIDE || width > BW_SKETCH_MAX_SIDE
       || height > BW_SKETCH_MAX_SIDE)
     {
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, "size: each side must be %g to %g",
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE, _ ("size: each side must be %g to %g"),
                    BW_SKETCH_MIN_SIDE, BW_SKETCH_MAX_SIDE);
       return FALSE;
     }

@@ -165,7 +165,7 @@ positive (double v, const char *field, const BwProcessUnit *u, GError **error)
   if (isfinite (v) && v > 0.0)
     return TRUE;
   g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-               "%s: must be greater than zero to draw unit '%s' (got %g)", field, u->id, v);
+               _ ("%s: must be greater than zero to draw unit '%s' (got %g)"), field, u->id, v);
   return FALSE;
 }
 
@@ -240,7 +240,7 @@ settler_banks (Unit *n, const BwProcessUnit *u, GError **error)
   if (n->count < 1)
     {
       g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                   "count: unit '%s' needs at least one plate or tube to be drawn (got 0)", u->id);
+                   _ ("count: unit '%s' needs at least one plate or tube to be drawn (got 0)"), u->id);
       return FALSE;
     }
   n->per_row = n->shape == 0 ? 1 : (guint) MAX (1.0, floor (b / n->spacing + 1e-9));
@@ -252,8 +252,8 @@ settler_banks (Unit *n, const BwProcessUnit *u, GError **error)
       if (n->module_area < b * run * (1.0 - 1e-9))
         {
           g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                       "module-area: unit '%s' covers less than one row of channels in plan "
-                       "(got %g m²; one row is %g m × %g m)", u->id, n->module_area, b, run);
+                       _ ("module-area: unit '%s' covers less than one row of channels in plan "
+                       "(got %g m²; one row is %g m × %g m)"), u->id, n->module_area, b, run);
           return FALSE;
         }
       while (k < SETTLER_MAX_BANKS && n->module_area / (k * b) > SETTLER_PLAN_RATIO * k * b
@@ -285,9 +285,9 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
     {
       g_autofree char *views = bw_sketch_views_of (u->type);
       g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_UNSUPPORTED,
-                   "unit '%s': no %s drawing of a %s (drawn: %s)", u->id,
+                   _ ("unit '%s': no %s drawing of a %s (drawn: %s)"), u->id,
                    view < BW_N_SKETCH_VIEWS ? view_names[view] : "such",
-                   bw_process_type_label (u->type), views);
+                   bw_label_process_type (u->type), views);
       return FALSE;
     }
   if (view == BW_SKETCH_SCHEMATIC)
@@ -296,7 +296,7 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
       if (out->train == NULL || out->train->units->len == 0)
         {
           g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                       "unit '%s': not in a train of the project", u->id);
+                       _ ("unit '%s': not in a train of the project"), u->id);
           return FALSE;
         }
       return TRUE;
@@ -316,7 +316,7 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
           if (out->floc == NULL)
             {
               g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                           "stage '%s': in no flocculator of the project", u->id);
+                           _ ("stage '%s': in no flocculator of the project"), u->id);
               return FALSE;
             }
         }
@@ -328,7 +328,7 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
       if (out->n_stages == 0 || out->n_stages > MAX_STAGES_DRAWN)
         {
           g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                       "stages: flocculator '%s' needs 1 to %d stages to be drawn (has %u)",
+                       _ ("stages: flocculator '%s' needs 1 to %d stages to be drawn (has %u)"),
                        out->floc->id, MAX_STAGES_DRAWN, out->n_stages);
           return FALSE;
         }
@@ -373,8 +373,8 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
                && out->launder_r < out->diameter / 2 - LAUNDER_WIDTH_M / 2))
         {
           g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                       "launder-radius: an inboard launder of unit '%s' must lie between the "
-                       "feed well and the wall (got %g m)", u->id, out->launder_r);
+                       _ ("launder-radius: an inboard launder of unit '%s' must lie between the "
+                       "feed well and the wall (got %g m)"), u->id, out->launder_r);
           return FALSE;
         }
       return TRUE;
@@ -393,7 +393,7 @@ read_unit (const BwProject *p, const BwProcessUnit *u, BwSketchView view, Unit *
       if (out->angle > G_PI / 2 * 0.999 || out->angle < 0.1)
         {
           g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_GEOMETRY,
-                       "angle: unit '%s' is drawn for 6° to 89° from horizontal (got %g rad)",
+                       _ ("angle: unit '%s' is drawn for 6° to 89° from horizontal (got %g rad)"),
                        u->id, out->angle);
           return FALSE;
         }
@@ -555,7 +555,7 @@ check_size (double w, double h, GError **error)
       || w > BW_SKETCH_MAX_SIDE || h > BW_SKETCH_MAX_SIDE)
     {
       g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_SIZE,
-                   "size: each side must be %g to %g (got %g x %g)", BW_SKETCH_MIN_SIDE,
+                   _ ("size: each side must be %g to %g (got %g x %g)"), BW_SKETCH_MIN_SIDE,
                    BW_SKETCH_MAX_SIDE, w, h);
       return FALSE;
     }
@@ -1977,7 +1977,8 @@ stage_detail (const Ctx *c, const BwProcessUnit *st)
         double r[3];
         const int nr = blade_radii (st, r);
         GString *g = g_string_new (NULL);
-        g_string_append_printf (g, "%d × %d arms, r ", (int) param (st, "wheels"),
+        /* TRANSLATORS: paddle wheels × arms per wheel, then the blade radii */
+        g_string_append_printf (g, _("%d × %d arms, r "), (int) param (st, "wheels"),
                                 (int) param (st, "arms"));
         for (int i = 0; i < nr; i++)
           {
@@ -1994,7 +1995,8 @@ stage_detail (const Ctx *c, const BwProcessUnit *st)
     case BW_STAGE_BAFFLED:
       {
         g_autofree char *d = fmt_len (c, param (st, "spacing"));
-        return g_strdup_printf ("%d passes at %s", (int) param (st, "passes"), d);
+        const int passes = (int) param (st, "passes");
+        return g_strdup_printf (ngettext ("%d pass at %s", "%d passes at %s", (gulong) passes), passes, d);
       }
     default:
       return g_strdup ("");
@@ -2216,7 +2218,7 @@ clarifier_plan (Ctx *c, const Unit *n)
   {
     const double tx = px (c, R + t) + 2.0 * fs;
     g_autofree char *fd = fmt_len (c, n->feed_well);
-    g_autofree char *fl = g_strdup_printf ("feed well Ø %s%s", fd,
+    g_autofree char *fl = g_strdup_printf (_("feed well Ø %s%s"), fd,
                                            n->feed_well_given ? "" : _(" (drawn; not given)"));
     g_autofree char *lr = fmt_len (c, n->launder_r);
     g_autofree char *ll = n->inboard ? g_strdup_printf (_("%s at r %s"), launder_kind (n), lr)
@@ -3149,7 +3151,7 @@ bw_sketch_paint (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
   g_return_val_if_fail (p != NULL && u != NULL && style != NULL && cr != NULL, FALSE);
   if (cairo_status (cr) != CAIRO_STATUS_SUCCESS)
     {
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, "cairo: %s",
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, _ ("cairo: %s"),
                    cairo_status_to_string (cairo_status (cr)));
       return FALSE;
     }
@@ -3160,7 +3162,7 @@ bw_sketch_paint (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
       results = bw_project_evaluate (p, error);
       if (results == NULL)
         {
-          g_prefix_error (error, "schematic: ");
+          g_prefix_error (error, _ ("schematic: "));
           return FALSE;
         }
     }
@@ -3207,7 +3209,7 @@ bw_sketch_paint (const BwProject *p, const BwProcessUnit *u, BwSketchView view,
   status = cairo_status (cr);
   if (status != CAIRO_STATUS_SUCCESS)
     {
-      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, "cairo: %s",
+      g_set_error (error, BW_DRAW_ERROR, BW_DRAW_ERROR_CAIRO, _ ("cairo: %s"),
                    cairo_status_to_string (status));
       return FALSE;
     }

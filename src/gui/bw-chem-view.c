@@ -928,7 +928,8 @@ record_rebuild (BwChemView *self)
       cell_q (g, 2, row, s.jars[i].turbidity_NTU, BW_KIND_TURBIDITY, self);
       if (s.has_ph)
         {
-          g_autofree char *ph = bw_format_number (s.jars[i].ph, 3);
+          g_autofree char *c_ph = bw_format_number (s.jars[i].ph, 3);
+          g_autofree char *ph = bw_locale_localize_number (c_ph);
           cell (g, 3, row, ph, FALSE);
         }
       if (s.has_zeta)

@@ -13,6 +13,7 @@
 #include "bw-gui-test.h"
 #include "engine/bw-project.h"
 #include "gui/bw-chem-view.h"
+#include "draw/bw-chart-jartest.h"
 #include "draw/bw-report.h"
 #include "gui/bw-locale.h"
 #include "gui/bw-review-view.h"
@@ -389,6 +390,27 @@ START_TEST (test_report_in_spanish)
 }
 END_TEST
 
+/* The jar-test chart of the Chemistry page is titled, captioned and refused in Spanish (the demo
+ * record has six jars at 12 °C). */
+START_TEST (test_jar_chart_in_spanish)
+{
+  BwWindow *w = demo_window ();
+  const BwProject *p = bw_window_get_project (w);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (BwChart) ch = bw_chart_jartest_of_project (p, "jt-2026-11", 2.0, BW_UNIT_SYSTEM_SI, &error);
+
+  ck_assert_msg (ch != NULL, "%s", error ? error->message : "");
+  ck_assert_str_eq (ch->title, "Ensayo de jarras: Alder Creek raw water, November (fictional)");
+  /* (the chart's numbers take the decimal comma where they are drawn: bw_label_number) */
+  ck_assert_msg (g_str_has_prefix (ch->subtitle, "6 jarras a 12"), "%s", ch->subtitle);
+  ck_assert_msg (strstr (ch->footnote, "ingeniero colegiado") != NULL, "%s", ch->footnote);
+  ck_assert_ptr_null (bw_chart_jartest_of_project (p, "jt-none", 0, BW_UNIT_SYSTEM_SI, &error));
+  ck_assert_msg (strstr (error->message, "no tiene ningún ensayo de jarras con el id «jt-none»") != NULL,
+                 "%s", error->message);
+  close_window (w);
+}
+END_TEST
+
 START_TEST (test_locale_helpers)
 {
   char *s;
@@ -434,6 +456,7 @@ i18n_suite (void)
   tcase_add_test (tc, test_model_and_loader_messages_in_spanish);
   tcase_add_test (tc, test_review_numbers_in_spanish);
   tcase_add_test (tc, test_report_in_spanish);
+  tcase_add_test (tc, test_jar_chart_in_spanish);
   tcase_add_test (tc, test_locale_helpers);
   suite_add_tcase (s, tc);
   return s;
