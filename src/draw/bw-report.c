@@ -1096,7 +1096,7 @@ unit_section (Doc *d, const Report *rp, const BwTrain *tr, const BwProcessUnit *
 static void
 criteria_section (Doc *d, const Report *rp)
 {
-  static const double w[] = { 0.07, 0.12, 0.18, 0.1, 0.12, 0.16, 0.25 };
+  static const double w[] = { 0.09, 0.12, 0.18, 0.1, 0.12, 0.16, 0.23 };
   static const guint f[] = { T_BOLD, T_MONO, 0, T_RIGHT, T_RIGHT, T_MUTED, 0 };
   guint counts[4] = { 0 };
   g_autofree char *intro = NULL;
@@ -1591,7 +1591,7 @@ review_body (Doc *d, gconstpointer data)
 
   doc_section (d, _("Criteria findings"));
   {
-    static const double w[] = { 0.07, 0.12, 0.18, 0.1, 0.12, 0.16, 0.25 };
+    static const double w[] = { 0.09, 0.12, 0.18, 0.1, 0.12, 0.16, 0.23 };
     static const guint f[] = { T_BOLD, T_MONO, 0, T_RIGHT, T_RIGHT, T_MUTED, 0 };
     Table *t = table_new (7, w, f, 7.2, _("Status"), _("Element"), _("Criterion"), _("Value"), _("Limit"), _("Governing case"),
                           _("Clause cited"));
