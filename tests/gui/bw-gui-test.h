@@ -3,6 +3,7 @@
  * running the main loop until the window has settled. */
 #pragma once
 
+#include <check.h>
 #include <gtk/gtk.h>
 #include <stdlib.h>
 
@@ -90,4 +91,26 @@ bw_gui_test_find_button (GtkWidget *root, const char *label)
         return found;
     }
   return NULL;
+}
+
+/* A window of APP on the demo project, presented, after about PUMP_MS of the main loop. */
+static inline BwWindow *
+bw_gui_test_demo_window (BwApplication *app, guint pump_ms)
+{
+  g_autofree char *demo = bw_gui_test_demo_path ();
+  g_autoptr (GError) error = NULL;
+  BwWindow *w = bw_window_new (app);
+
+  ck_assert_msg (bw_window_open_path (w, demo, &error), "%s", error ? error->message : "");
+  gtk_window_present (GTK_WINDOW (w));
+  bw_gui_test_pump (pump_ms);
+  return w;
+}
+
+/* Destroys W and lets the main loop settle. */
+static inline void
+bw_gui_test_close_window (BwWindow *w)
+{
+  gtk_window_destroy (GTK_WINDOW (w));
+  bw_gui_test_pump (10);
 }

@@ -19,26 +19,6 @@ static char *tmpdir;
 /* A guard against a hang, not a timing check: a search of the demo takes well under a second. */
 #define WAIT_LIMIT_MS 120000
 
-static BwWindow *
-demo_window (void)
-{
-  g_autofree char *demo = bw_gui_test_demo_path ();
-  g_autoptr (GError) error = NULL;
-  BwWindow *w = bw_window_new (app);
-
-  ck_assert_msg (bw_window_open_path (w, demo, &error), "%s", error ? error->message : "");
-  gtk_window_present (GTK_WINDOW (w));
-  bw_gui_test_pump (50);
-  return w;
-}
-
-static void
-close_window (BwWindow *w)
-{
-  gtk_window_destroy (GTK_WINDOW (w));
-  bw_gui_test_pump (10);
-}
-
 /* The auto-size dialog open over W, or NULL. */
 static BwAutosizeDialog *
 find_dialog (BwWindow *w)
@@ -122,7 +102,7 @@ element_index (const BwResults *r, const char *id)
 
 START_TEST (test_action_follows_selection)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   BwAutosizeDialog *d;
   GtkWidget *button;
 
@@ -160,13 +140,13 @@ START_TEST (test_action_follows_selection)
   gtk_widget_activate_action (GTK_WIDGET (w), "win.autosize", NULL);
   bw_gui_test_pump (20);
   ck_assert_ptr_null (find_dialog (w));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_search_lists_engine_designs_and_applies_once)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   BwAutosizeDialog *d = open_dialog (w, "north-sed");
   const BwAutosizeResult *got;
   BwAutosizeResult want;
@@ -283,7 +263,7 @@ START_TEST (test_search_lists_engine_designs_and_applies_once)
 
   bw_autosize_result_clear (&want);
   gtk_window_destroy (GTK_WINDOW (d));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -308,7 +288,7 @@ cancel_on_first_report (BwAutosizeDialog *d, double fraction, gpointer data)
 
 START_TEST (test_cancel_stops_and_changes_nothing)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   /* The basin has the largest grid of the demo (231 176 designs; derived from the engine's
    * ranges: 37 widths x 71 lengths x 11 depths x 8 parallel counts, reported every 16 384). */
   BwAutosizeDialog *d = open_dialog (w, "north-sed");
@@ -337,13 +317,13 @@ START_TEST (test_cancel_stops_and_changes_nothing)
   wait_finished (d);
   ck_assert_ptr_nonnull (bw_autosize_dialog_get_result (d));
   gtk_window_destroy (GTK_WINDOW (d));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_close_during_search_is_safe)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   BwAutosizeDialog *d = open_dialog (w, "north-sed");
   g_autoptr (BwProject) before = bw_project_copy (bw_window_get_project (w));
   gpointer alive = d;
@@ -366,13 +346,13 @@ START_TEST (test_close_during_search_is_safe)
   wait_finished (d);
   ck_assert_ptr_nonnull (bw_autosize_dialog_get_result (d));
   /* Closing the window takes the dialog with it. */
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_no_design_says_why)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   BwProject *big = bw_project_copy (bw_window_get_project (w));
   BwAutosizeDialog *d;
   BwAutosizeResult r;
@@ -398,7 +378,7 @@ START_TEST (test_no_design_says_why)
   ck_assert_ptr_nonnull (strstr (msg, "no design in the searched space"));
   ck_assert (!gtk_widget_get_sensitive (bw_gui_test_find_button (GTK_WIDGET (d), "_Apply")));
   gtk_window_destroy (GTK_WINDOW (d));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 

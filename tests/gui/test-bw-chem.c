@@ -47,13 +47,6 @@ demo_window (void)
   return w;
 }
 
-static void
-close_window (BwWindow *w)
-{
-  gtk_window_destroy (GTK_WINDOW (w));
-  bw_gui_test_pump (10);
-}
-
 /* The chemistry page of W, found in its widget tree. */
 static BwChemView *
 chem_view (BwWindow *w)
@@ -204,7 +197,7 @@ START_TEST (test_chem_page_shows_demo)
   text = bw_chem_view_dup_results_text (v);
   ck_assert_msg (strstr (text, "north-rm") && strstr (text, "north-sed"), "%s", text);
   ck_assert_msg (strstr (text, "nan") == NULL && strstr (text, "inf") == NULL, "%s", text);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -230,7 +223,7 @@ START_TEST (test_chem_tables_do_not_widen_the_page)
   /* 740 px: a 1024 px window less the plant list (256 px) and the page margins (derived from
    * the window's 1024x700 screenshot). */
   ck_assert_int_le (page_min, 740);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -260,7 +253,7 @@ START_TEST (test_chem_typed_dose_reaches_rapid_mix)
   ck_assert_double_eq_tol (bw_window_get_project (w)->chemistry.dose_max_kg_m3, 0.045, 1e-12);
   ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (e)), "45.00 mg/L");
   ck_assert_double_eq_tol (result_of (w, "north-rm", BW_Q_COAGULANT_FEED), before, 1e-15);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -306,7 +299,7 @@ START_TEST (test_chem_refused_entries_flagged)
   e = type_into (v, "target", "-1");
   ck_assert (gtk_widget_has_css_class (e, "error"));
   ck_assert (gtk_widget_get_visible (bw_chem_view_get_field_error (v, "target")));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -412,7 +405,7 @@ START_TEST (test_chem_import_use_dose_and_chart)
   bw_gui_test_pump (5);
   ck_assert_uint_eq (bw_window_get_project (w)->jar_tests->len, 0);
   ck_assert_ptr_null (bw_window_get_project (w)->chemistry.jar_test);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -445,7 +438,7 @@ START_TEST (test_chem_kind_and_units)
   }
   bw_application_set_unit_system (app, BW_UNIT_SYSTEM_SI);
   bw_gui_test_pump (10);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -523,7 +516,7 @@ START_TEST (test_chem_liquid_feed_and_sludge_volume)
   gtk_widget_activate_action (GTK_WIDGET (w), "win.undo", NULL);
   bw_gui_test_pump (5);
   ck_assert_double_eq_tol (bw_window_get_project (w)->chemistry.stock_fraction, 0.40, 1e-12);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -596,7 +589,7 @@ START_TEST (test_chem_new_fields_refused)
     g_autofree char *text = bw_chem_view_dup_results_text (v);
     ck_assert_msg (strstr (text, "Soda ash"), "%s", text);
   }
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -642,7 +635,7 @@ START_TEST (test_chem_screenshot)
   shoot (bw_chem_view_get_widget (v, "results"), "shot-chemistry-results");
   type_into (v, "dose:minimum", "5 m");
   shoot (GTK_WIDGET (w), "shot-chemistry-invalid");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 

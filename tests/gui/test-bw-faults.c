@@ -35,13 +35,6 @@ open_window (const char *path)
   return w;
 }
 
-static void
-close_window (BwWindow *w)
-{
-  gtk_window_destroy (GTK_WINDOW (w));
-  bw_gui_test_pump (10);
-}
-
 static double
 length_of (BwWindow *w)
 {
@@ -208,7 +201,7 @@ START_TEST (test_recovery_after_kill)
                     "18.29 m");
   /* The recovered file is consumed. */
   ck_assert (!g_file_test (line, G_FILE_TEST_EXISTS));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -254,7 +247,7 @@ START_TEST (test_save_to_read_only_folder_keeps_edits)
   ck_assert_msg (again != NULL, "%s", error ? error->message : "");
   ck_assert (bw_project_equal (again, bw_window_get_project (w)));
   ck_assert (bw_project_equal (again, before));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -307,7 +300,7 @@ START_TEST (test_autosave_into_read_only_folder)
     ck_assert (got != NULL && bw_project_equal (got, before));
   }
   g_unlink (path);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 

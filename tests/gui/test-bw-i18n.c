@@ -21,19 +21,6 @@
 static BwApplication *app;
 static char *tmpdir;
 
-static BwWindow *
-demo_window (void)
-{
-  g_autofree char *demo = bw_gui_test_demo_path ();
-  g_autoptr (GError) error = NULL;
-  BwWindow *w = bw_window_new (app);
-
-  ck_assert_msg (bw_window_open_path (w, demo, &error), "%s", error ? error->message : "");
-  gtk_window_present (GTK_WINDOW (w));
-  bw_gui_test_pump (50);
-  return w;
-}
-
 /* Hides W: the windows are destroyed with the application at the end. */
 static void
 close_window (BwWindow *w)
@@ -101,7 +88,7 @@ has_decimal_comma (const char *text)
 
 START_TEST (test_spanish_strings_show)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkStack *stack = find_stack (GTK_WIDGET (w));
   GtkWidget *caution;
 
@@ -140,7 +127,7 @@ END_TEST
  * N_() there and translated where the workbench shows it; so are the newer pages and dialogs. */
 START_TEST (test_engine_text_in_spanish)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkStack *stack = find_stack (GTK_WIDGET (w));
   GtkWidget *review;
   guint chips;
@@ -172,7 +159,7 @@ END_TEST
 
 START_TEST (test_numbers_use_the_decimal_comma)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *e;
   g_autofree char *results = NULL;
   const BwProcessUnit *u;
@@ -233,7 +220,7 @@ END_TEST
  * in-place error in Spanish, the quantity kinds with them. */
 START_TEST (test_engine_messages_in_spanish)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *e, *err;
   const char *shown;
 
@@ -264,7 +251,7 @@ END_TEST
  * refuses, shown under the field, and a project file the loader refuses, as open reports it. */
 START_TEST (test_model_and_loader_messages_in_spanish)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autofree char *demo = bw_gui_test_demo_path ();
   g_autofree char *text = NULL;
   g_autofree char *bad = g_build_filename (tmpdir, "malo.bwproj", NULL);
@@ -315,7 +302,7 @@ append_labels (GtkWidget *widget, GString *out)
  * tolerance "1,000" % is one per cent, not a thousand. */
 START_TEST (test_review_numbers_in_spanish)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *v = bw_gui_test_find_widget (GTK_WIDGET (w), BW_TYPE_REVIEW_VIEW);
   GtkWidget *tol;
   g_autoptr (GString) shown = g_string_new (NULL);
@@ -345,7 +332,7 @@ END_TEST
  * tables and in the text of its drawings and charts, and names the coagulant in Spanish. */
 START_TEST (test_report_in_spanish)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autofree char *pdf = g_build_filename (tmpdir, "informe.pdf", NULL);
   g_autofree char *text = NULL;
   g_autofree char *err = NULL;
@@ -394,7 +381,7 @@ END_TEST
  * record has six jars at 12 °C). */
 START_TEST (test_jar_chart_in_spanish)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   const BwProject *p = bw_window_get_project (w);
   g_autoptr (GError) error = NULL;
   g_autoptr (BwChart) ch = bw_chart_jartest_of_project (p, "jt-2026-11", 2.0, BW_UNIT_SYSTEM_SI, &error);

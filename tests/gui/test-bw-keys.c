@@ -19,26 +19,6 @@ static BwApplication *app;
 static char *tmpdir;
 static char *xdotool;
 
-static BwWindow *
-demo_window (void)
-{
-  g_autofree char *demo = bw_gui_test_demo_path ();
-  g_autoptr (GError) error = NULL;
-  BwWindow *w = bw_window_new (app);
-
-  ck_assert_msg (bw_window_open_path (w, demo, &error), "%s", error ? error->message : "");
-  gtk_window_present (GTK_WINDOW (w));
-  bw_gui_test_pump (150);
-  return w;
-}
-
-static void
-close_window (BwWindow *w)
-{
-  gtk_window_destroy (GTK_WINDOW (w));
-  bw_gui_test_pump (10);
-}
-
 /* The ids of train TRAIN's units in flow order, joined with spaces. */
 static char *
 order_of (BwWindow *w, guint train)
@@ -146,7 +126,7 @@ START_TEST (test_navigator_keys)
       /* deps.sh installs it; without it, say so loudly and fail rather than pass silently */
       ck_abort_msg ("xdotool not found: install it (build-aux/deps.sh) to run the key tests");
     }
-  w = demo_window ();
+  w = bw_gui_test_demo_window (app, 150);
   focus_window (w);
   ck_assert (bw_window_select_unit (w, "north-rm"));
   gtk_widget_grab_focus (nav_row_of (w, "north-rm"));
@@ -181,7 +161,7 @@ START_TEST (test_navigator_keys)
       bw_gui_test_pump (20);
     ck_assert (gtk_widget_get_mapped (checks));
   }
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -194,7 +174,7 @@ START_TEST (test_ctrl_z_in_entry_undoes_typing)
 
   if (xdotool == NULL)
     ck_abort_msg ("xdotool not found: install it (build-aux/deps.sh) to run the key tests");
-  w = demo_window ();
+  w = bw_gui_test_demo_window (app, 150);
   focus_window (w);
   bw_window_select_unit (w, "north-sed");
   /* one model edit to have something the window could undo */
@@ -226,14 +206,14 @@ START_TEST (test_ctrl_z_in_entry_undoes_typing)
   WAIT_UNTIL (bw_process_unit_get (bw_project_find_unit (bw_window_get_project (w), "north-sed", NULL), "length") < 59);
   ck_assert_double_eq_tol (bw_process_unit_get (bw_project_find_unit (bw_window_get_project (w), "north-sed", NULL), "length"),
                            56.0, 1e-12); /* the demo file's length */
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 /* Dropping a dragged row on another moves the unit there, within its train only, undoably. */
 START_TEST (test_drop_reorders_within_train)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 150);
   g_autoptr (GError) error = NULL;
   g_autofree char *a = NULL, *b = NULL;
   GtkWidget *row = nav_row_of (w, "north-sed");
@@ -261,7 +241,7 @@ START_TEST (test_drop_reorders_within_train)
   g_free (a);
   a = order_of (w, 0);
   ck_assert_str_eq (a, "north-rm north-floc north-sed");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -278,7 +258,7 @@ START_TEST (test_schematic_click_selects)
 
   if (xdotool == NULL)
     ck_abort_msg ("xdotool not found: install it (build-aux/deps.sh) to run the key tests");
-  w = demo_window ();
+  w = bw_gui_test_demo_window (app, 150);
   focus_window (w);
   p = bw_window_get_project (w);
   t = g_ptr_array_index (p->trains, 0);
@@ -331,14 +311,14 @@ START_TEST (test_schematic_click_selects)
   ck_assert_str_eq (bw_window_get_selected_id (w), "north-sed");
   /* the schematic stays in view, now with the basin highlighted */
   ck_assert_uint_eq (gtk_drop_down_get_selected (GTK_DROP_DOWN (view)), 2);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 /* F1 opens the manual, from the local docs, at the part for the page in view. */
 START_TEST (test_f1_opens_manual_at_page)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 150);
   g_auto (GStrv) accels = gtk_application_get_accels_for_action (GTK_APPLICATION (app), "win.help");
   GtkWindow *help;
   g_autoptr (GError) error = NULL;
@@ -363,7 +343,7 @@ START_TEST (test_f1_opens_manual_at_page)
   ck_assert_str_eq (bw_help_topic_for_page ("unit"), "unit page");
   ck_assert_ptr_null (bw_help_topic_for_page ("no-such-page"));
   g_unsetenv ("BASINWRIGHT_DOCDIR");
-  close_window (w);
+  bw_gui_test_close_window (w);
   bw_gui_test_pump (50);
 }
 END_TEST
@@ -386,7 +366,7 @@ START_TEST (test_preferences_in_gsettings)
   ck_assert_int_eq (bw_application_get_paper (app), BW_REPORT_PAPER_LETTER);
   bw_application_set_paper (app, BW_REPORT_PAPER_A4);
 
-  w = demo_window ();
+  w = bw_gui_test_demo_window (app, 150);
   {
     GtkWidget *dd = bw_window_get_field_widget (w, "criteria");
     GListModel *m = gtk_drop_down_get_model (GTK_DROP_DOWN (dd));
@@ -397,11 +377,11 @@ START_TEST (test_preferences_in_gsettings)
   }
   last = g_settings_get_string (settings, "last-criteria-set");
   ck_assert_str_eq (last, bw_window_get_project (w)->criteria);
-  close_window (w);
+  bw_gui_test_close_window (w);
   w = bw_window_new (app);
   ck_assert_str_eq (bw_window_get_project (w)->criteria, last);
   ck_assert (bw_window_is_pristine (w));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 

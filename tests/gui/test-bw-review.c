@@ -41,13 +41,6 @@ open_window (const char *name)
   return w;
 }
 
-static void
-close_window (BwWindow *w)
-{
-  gtk_window_destroy (GTK_WINDOW (w));
-  bw_gui_test_pump (10);
-}
-
 static BwReviewView *
 review_of (BwWindow *w)
 {
@@ -166,7 +159,7 @@ START_TEST (test_findings_match_engine)
     g_autoptr (GPtrArray) after = rows_of_kind (v, BW_FINDING_DISCREPANCY);
     ck_assert_uint_eq (after->len, 0);
   }
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -206,7 +199,7 @@ START_TEST (test_comment_saved_and_undone)
   ck_assert_ptr_null (((BwStated *) g_ptr_array_index (bw_window_get_project (w)->stated, 1))->comment);
   entry = g_object_get_data (G_OBJECT (row_of_stated (v, 1)), "bw-comment");
   ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (entry)), "");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -249,7 +242,7 @@ START_TEST (test_tolerance_flagged_and_applied)
   bw_review_view_refresh (v);
   ck_assert_double_eq (bw_window_get_project (w)->review_tolerance, 0.01);
   ck_assert_str_eq (gtk_editable_get_text (GTK_EDITABLE (e)), "1.000");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -274,7 +267,7 @@ START_TEST (test_bad_csv_names_the_line)
   ck_assert_str_eq (bw_review_view_get_findings_note (v), expect->message);
   ck_assert_uint_eq (bw_window_get_project (w)->stated->len, 0);
   ck_assert (!bw_window_is_modified (w));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -434,7 +427,7 @@ START_TEST (test_compare_reviewer_order)
       }
   ck_assert_uint_eq (rows_results, n_results);
   ck_assert_int_gt (first_result, first_input);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -500,7 +493,7 @@ START_TEST (test_compare_lists_input_changes)
   ck_assert (!bw_review_view_compare_with (v, missing, &error));
   ck_assert_str_eq (bw_review_view_get_compare_note (v), error->message);
   ck_assert (strstr (error->message, "no-such.bwproj") != NULL);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -620,7 +613,7 @@ START_TEST (test_report_preview_and_export)
       ck_assert_msg (!g_str_has_prefix (name, "report.pdf."), "left behind: %s", name);
   }
   gtk_window_destroy (GTK_WINDOW (d));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -652,7 +645,7 @@ START_TEST (test_report_letter_and_preparer)
   gtk_window_destroy (GTK_WINDOW (d));
   ck_assert (gtk_widget_activate_action (GTK_WIDGET (w), "win.undo", NULL));
   ck_assert (g_strcmp0 (bw_window_get_project (w)->preparer, "R. Okonkwo-Hale, P.Eng. (fictional)") != 0);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -672,7 +665,7 @@ START_TEST (test_findings_report_export)
     ck_assert (strstr (text, bw_window_get_project (w)->name) != NULL);
     ck_assert (strstr (text, "Discrepancies") != NULL);
   }
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -734,7 +727,7 @@ START_TEST (test_screenshots)
   d = wait_dialog (w);
   shoot (GTK_WIDGET (d), "report-dialog");
   gtk_window_destroy (GTK_WINDOW (d));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 

@@ -18,26 +18,6 @@
 static BwApplication *app;
 static char *tmpdir;
 
-static BwWindow *
-demo_window (void)
-{
-  g_autofree char *demo = bw_gui_test_demo_path ();
-  g_autoptr (GError) error = NULL;
-  BwWindow *w = bw_window_new (app);
-
-  ck_assert_msg (bw_window_open_path (w, demo, &error), "%s", error ? error->message : "");
-  gtk_window_present (GTK_WINDOW (w));
-  bw_gui_test_pump (50);
-  return w;
-}
-
-static void
-close_window (BwWindow *w)
-{
-  gtk_window_destroy (GTK_WINDOW (w));
-  bw_gui_test_pump (10);
-}
-
 static double
 param (BwWindow *w, const char *unit, const char *id)
 {
@@ -68,7 +48,7 @@ text_of (GtkWidget *w)
 
 START_TEST (test_window_shows_demo)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   const BwProject *p = bw_window_get_project (w);
   GtkWidget *e;
 
@@ -99,13 +79,13 @@ START_TEST (test_window_shows_demo)
   e = bw_window_get_field_widget (w, "length");
   /* 56 m from the demo file, formatted by the engine (four significant figures). */
   ck_assert_str_eq (text_of (e), "56.00 m");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_typed_feet_are_applied)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *e;
 
   bw_window_select_unit (w, "north-sed");
@@ -116,7 +96,7 @@ START_TEST (test_typed_feet_are_applied)
   ck_assert (!gtk_widget_has_css_class (e, "error"));
   ck_assert (bw_window_is_modified (w));
   ck_assert (g_str_has_prefix (gtk_window_get_title (GTK_WINDOW (w)), "• "));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -140,7 +120,7 @@ results_value_label (BwWindow *w, const char *row_text, int col)
  * values); another unit, or the every-case columns, build a new table. */
 START_TEST (test_results_update_in_place)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkLabel *before, *after, *other;
   double v0, v1;
 
@@ -178,7 +158,7 @@ START_TEST (test_results_update_in_place)
   ck_assert_ptr_nonnull (other);
   ck_assert_ptr_ne (other, before);
   g_object_unref (before);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -211,7 +191,7 @@ END_TEST
 
 START_TEST (test_wrong_kind_is_flagged_not_applied)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autoptr (GError) expect = NULL;
   GtkWidget *e, *err;
   double v;
@@ -233,13 +213,13 @@ START_TEST (test_wrong_kind_is_flagged_not_applied)
   ck_assert (!gtk_widget_has_css_class (e, "error"));
   ck_assert (!gtk_widget_get_visible (err));
   ck_assert_double_eq (param (w, "north-sed", "length"), 50.0);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_out_of_range_and_garbage_flagged)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *e, *err;
   g_autofree char *results = NULL;
 
@@ -259,13 +239,13 @@ START_TEST (test_out_of_range_and_garbage_flagged)
   results = bw_window_dup_results_text (w);
   ck_assert (strstr (results, "overflow rate") != NULL);
   ck_assert (strstr (results, "nan") == NULL && strstr (results, "inf") == NULL);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_unit_system_reformats)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *e;
   g_autofree char *us = bw_units_format (56.0, BW_KIND_LENGTH, BW_UNIT_SYSTEM_US);
   g_autofree char *flow_us = bw_units_format (0.35, BW_KIND_FLOW, BW_UNIT_SYSTEM_US);
@@ -284,7 +264,7 @@ START_TEST (test_unit_system_reformats)
   bw_application_set_unit_system (app, BW_UNIT_SYSTEM_SI);
   bw_gui_test_pump (5);
   ck_assert_str_eq (text_of (e), "30.48 m");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -307,7 +287,7 @@ index_in_train (BwWindow *w, const char *train, const char *id)
 
 START_TEST (test_add_move_remove_and_undo)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   const BwTrain *north = g_ptr_array_index (bw_window_get_project (w)->trains, 0);
   const char *added;
 
@@ -341,13 +321,13 @@ START_TEST (test_add_move_remove_and_undo)
     ck_assert (bw_project_equal (bw_window_get_project (w), file));
   }
   ck_assert (!bw_window_is_modified (w));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_undo_redo_restore_value)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *e;
 
   bw_window_select_unit (w, "north-sed");
@@ -361,13 +341,13 @@ START_TEST (test_undo_redo_restore_value)
   ck_assert (gtk_widget_activate_action (GTK_WIDGET (w), "win.redo", NULL));
   ck_assert_double_eq_tol (param (w, "north-sed", "length"), 18.288, 1e-12);
   ck_assert_str_eq (text_of (bw_window_get_field_widget (w, "length")), "18.29 m");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_choice_count_and_stage_fields)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *dd, *spin;
 
   bw_window_select_unit (w, "north-rm");
@@ -391,13 +371,13 @@ START_TEST (test_choice_count_and_stage_fields)
   ck_assert_double_eq_tol (param (w, "north-floc-2", "speed"), 4.0 / 60.0, 1e-15);
   type_into (w, "name", "Second stage");
   ck_assert_str_eq (bw_project_find_unit (bw_window_get_project (w), "north-floc-2", NULL)->name, "Second stage");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_design_basis_fields)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autoptr (GError) expect = NULL;
   double mgd;
   GtkWidget *e;
@@ -415,13 +395,13 @@ START_TEST (test_design_basis_fields)
   type_into (w, "temperature:coldest", "41 F");
   /* (41 - 32) x 5/9 = 5 degC = 278.15 K */
   ck_assert_double_eq_tol (bw_window_get_project (w)->basis.temperature_K[BW_TEMP_COLDEST], 278.15, 1e-9);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_check_activation_selects_unit)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *list = bw_window_get_checks_list (w);
   GtkWidget *row;
   int n = 0;
@@ -436,13 +416,13 @@ START_TEST (test_check_activation_selects_unit)
   bw_window_show_page (w, "checks");
   g_signal_emit_by_name (list, "row-activated", row);
   ck_assert_str_eq (bw_window_get_selected_id (w), "south-sed");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_save_and_reopen_equal)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   BwWindow *again;
   g_autoptr (GError) error = NULL;
   g_autofree char *path = g_build_filename (tmpdir, "saved.bwproj", NULL);
@@ -465,14 +445,14 @@ START_TEST (test_save_and_reopen_equal)
   again = bw_window_new (app);
   ck_assert (bw_window_open_path (again, path, &error));
   ck_assert (bw_project_equal (bw_window_get_project (w), bw_window_get_project (again)));
-  close_window (again);
-  close_window (w);
+  bw_gui_test_close_window (again);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_autosave_written_and_recoverable)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   BwWindow *other;
   g_autofree char *path = NULL;
   g_autoptr (BwProject) copy = NULL;
@@ -495,14 +475,14 @@ START_TEST (test_autosave_written_and_recoverable)
   ck_assert (bw_project_equal (copy, bw_window_get_project (other)));
   ck_assert (bw_window_is_modified (other));
   ck_assert (!g_file_test (path, G_FILE_TEST_EXISTS));
-  close_window (other);
-  close_window (w);
+  bw_gui_test_close_window (other);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_parallel_standby_spins)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *par = bw_window_get_field_widget (w, "parallel");
   GtkWidget *sb = bw_window_get_field_widget (w, "standby");
   const BwProcessUnit *u = bw_project_find_unit (bw_window_get_project (w), "east-rm", NULL);
@@ -522,7 +502,7 @@ START_TEST (test_parallel_standby_spins)
   /* a stage has no parallel units: the spins are insensitive there */
   bw_window_select_unit (w, "east-floc-1");
   ck_assert (!gtk_widget_is_sensitive (par));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -542,7 +522,7 @@ find_toplevel (GType type, GtkWindow *not)
 
 START_TEST (test_close_prompts_when_modified)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autoptr (GtkWidget) keep = g_object_ref (GTK_WIDGET (w));
   GtkWindow *prompt;
 
@@ -571,7 +551,7 @@ END_TEST
 
 START_TEST (test_about_repeats_caution)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWindow *about;
 
   ck_assert (strstr (BW_CAUTION_TEXT, "licensed professional engineer") != NULL);
@@ -581,13 +561,13 @@ START_TEST (test_about_repeats_caution)
   ck_assert_ptr_nonnull (about);
   ck_assert (strstr (gtk_about_dialog_get_comments (GTK_ABOUT_DIALOG (about)), BW_CAUTION_TEXT) != NULL);
   gtk_window_destroy (about);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_every_case_table)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autofree char *minmax = NULL;
   g_autofree char *every = NULL;
   const BwProject *p = bw_window_get_project (w);
@@ -612,7 +592,7 @@ START_TEST (test_every_case_table)
   for (const char *c = every; *c && *c != '\n'; c++)
     columns += *c == '\t';
   ck_assert_uint_eq (columns, enabled - 1);
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -631,7 +611,7 @@ results_cell_box (BwWindow *w, int col, int row)
  * that stays in view, and each row of values stays level with its quantity. */
 START_TEST (test_every_case_quantity_column_stays)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *name, *sideways;
   GtkAdjustment *adj;
   graphene_rect_t before, after, r;
@@ -679,7 +659,7 @@ START_TEST (test_every_case_quantity_column_stays)
   ck_assert (gtk_widget_compute_bounds (results_cell_box (w, cols - 1, 1), GTK_WIDGET (w), &r));
   ck_assert_double_ge (r.origin.x, after.origin.x + after.size.width);
   ck_assert_double_le (r.origin.x + r.size.width, gtk_widget_get_width (GTK_WIDGET (w)));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
@@ -699,13 +679,13 @@ START_TEST (test_new_from_demo)
       found = l->data;
   ck_assert_ptr_nonnull (found);                 /* the demo, as a new project with no file */
   ck_assert_uint_ge (g_list_length (gtk_application_get_windows (GTK_APPLICATION (app))), n);
-  close_window (found);
+  bw_gui_test_close_window (found);
 }
 END_TEST
 
 START_TEST (test_criteria_and_case_widgets)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   GtkWidget *list = bw_window_get_checks_list (w);
   GtkWidget *cases = NULL;
   GtkDropDown *dd = NULL;
@@ -743,13 +723,13 @@ START_TEST (test_criteria_and_case_widgets)
   ck_assert (gtk_widget_activate_action (GTK_WIDGET (w), "win.undo", NULL));
   ck_assert (g_array_index (p->cases, BwLoadCase, 0).enabled);
   ck_assert (gtk_check_button_get_active (GTK_CHECK_BUTTON (bw_window_get_field_widget (w, "case:0"))));
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_save_as_chooser)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   g_autofree char *want = g_build_filename (tmpdir, "chosen.bwproj", NULL);
   g_autoptr (GFile) folder = g_file_new_for_path (tmpdir);
   GtkWindow *chooser;
@@ -772,13 +752,13 @@ START_TEST (test_save_as_chooser)
     g_autoptr (BwProject) back = bw_project_load (want, NULL);
     ck_assert (bw_project_equal (back, bw_window_get_project (w)));
   }
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
 START_TEST (test_no_nan_anywhere_and_bad_file_refused)
 {
-  BwWindow *w = demo_window ();
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
   const BwProject *p = bw_window_get_project (w);
   g_autofree char *bad = g_build_filename (tmpdir, "bad.bwproj", NULL);
   g_autoptr (GError) error = NULL;
@@ -813,7 +793,7 @@ START_TEST (test_no_nan_anywhere_and_bad_file_refused)
   ck_assert (!bw_window_open_path (w, bad, &error));
   ck_assert (strstr (error->message, "bad.bwproj") != NULL);
   ck_assert_str_eq (bw_window_get_project (w)->name, "Alder Creek WTP, Marrowby (demo)");
-  close_window (w);
+  bw_gui_test_close_window (w);
 }
 END_TEST
 
