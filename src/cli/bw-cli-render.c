@@ -115,7 +115,9 @@ run_render (BwCliArgs *args)
       if (bw_chart_jartest_find_record (p, id) == NULL)
         return bw_cli_usage_error (args->command, "--unit: no jar-test record '%s' in %s (--view "
                                    "jartest draws a jar test)", id, project);
-      chart = bw_chart_jartest_of_project (p, id, -1, args->units, &error);
+      /* The project's target settled turbidity, drawn as a line as on the Chemistry page. */
+      chart = bw_chart_jartest_of_project (p, id, p->chemistry.target_NTU > 0 ? p->chemistry.target_NTU : -1,
+                                           args->units, &error);
       if (chart == NULL)
         return bw_cli_usage_error (args->command, "--unit: %s", error->message);
       if (!bw_export_chart (chart, style_opt->given && strcmp (style_opt->text, "dark") == 0

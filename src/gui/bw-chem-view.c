@@ -1158,7 +1158,7 @@ bw_chem_view_use_dose (BwChemView *self, GError **error)
   if (r == NULL)
     {
       g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID,
-                   "jar test: none is selected");
+                   _("jar test: none is selected"));
       return FALSE;
     }
   if (!analyse (r, target_of (self), &s, &res, error))
@@ -1300,7 +1300,7 @@ bw_chem_view_paint_chart (BwChemView *self, cairo_t *cr, int width, int height, 
   r = selected_record (self);
   if (r == NULL)
     {
-      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, "jar test: none is selected");
+      g_set_error (error, BW_ENGINE_ERROR, BW_ENGINE_ERROR_INVALID, _("jar test: none is selected"));
       return FALSE;
     }
   bw_jar_chart_options_init (&o);

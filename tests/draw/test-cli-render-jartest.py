@@ -50,6 +50,20 @@ tap.check("render jartest svg and pdf (dark, US units): rsvg-convert reads the S
           render_vector)
 
 
+def render_target_line():
+    # The demo project's target settled turbidity (2 NTU, its <target-turbidity>) is drawn and
+    # labelled, as on the Chemistry page; the PDF's text is read back with pdftotext.
+    pdf = os.path.join(tmp, "jt-target.pdf")
+    code, so, se = run("render", demo, "--unit", "jt-2026-11", "--view", "jartest", "--format",
+                       "pdf", "-o", pdf)
+    assert code == 0, (code, se)
+    p = subprocess.run(["pdftotext", pdf, "-"], capture_output=True, text=True, timeout=60)
+    assert p.returncode == 0, p.stderr
+    text = " ".join(p.stdout.split())
+    assert "target 2.000 NTU: reached at" in text, text
+tap.check("render jartest: the project's target turbidity is drawn and labelled", render_target_line)
+
+
 def render_json():
     out = os.path.join(tmp, "jt2.png")
     j = run_json("render", demo, "--unit", "jt-2026-11", "--view", "jartest", "--format", "png",
