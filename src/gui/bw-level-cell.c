@@ -32,11 +32,11 @@ level_measure (GtkWidget *widget, GtkOrientation orientation, int for_size, int 
   if (self->child == NULL || !gtk_widget_get_visible (self->child))
     return;
   gtk_widget_measure (self->child, GTK_ORIENTATION_HORIZONTAL, -1, &wmin, &wnat, NULL, NULL);
+  (void) wmin;
+  /* Never narrower than the child's natural width: squeezed (a scrolled window gives its child
+   * only its minimum width), a wrapping label would take more lines than the height reported. */
   if (orientation == GTK_ORIENTATION_HORIZONTAL)
-    {
-      *minimum = wmin;
-      *natural = wnat;
-    }
+    *minimum = *natural = wnat;
   else
     gtk_widget_measure (self->child, GTK_ORIENTATION_VERTICAL, wnat, minimum, natural, NULL, NULL);
 }

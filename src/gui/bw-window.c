@@ -754,7 +754,7 @@ value_cell (ResultsPass *p, int col, int row, const char *value, const char *cas
       gtk_label_set_xalign (made_c, 1);
       gtk_label_set_justify (made_c, GTK_JUSTIFY_RIGHT);
       gtk_label_set_wrap (made_c, TRUE);
-      gtk_label_set_max_width_chars (made_c, 14);
+      gtk_label_set_max_width_chars (made_c, 10);
       gtk_widget_add_css_class (GTK_WIDGET (made_c), "dim-label");
       gtk_widget_add_css_class (GTK_WIDGET (made_c), "caption");
       gtk_box_append (GTK_BOX (box), GTK_WIDGET (made_v));
