@@ -663,6 +663,38 @@ START_TEST (test_every_case_quantity_column_stays)
 }
 END_TEST
 
+/* Every cell of the smallest/largest table, in US units at 1024 px (captions that wrap, columns
+ * wider than the pane), has the height its content needs at the width it was given: no value
+ * or caption runs into the next row. */
+START_TEST (test_results_cells_hold_their_text)
+{
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
+  guint cells = 0;
+
+  gtk_window_set_default_size (GTK_WINDOW (w), 1024, 700);
+  bw_application_set_unit_system (app, BW_UNIT_SYSTEM_US);
+  bw_window_select_unit (w, "south-sed");
+  bw_gui_test_pump (100);
+  for (int row = 0; bw_window_get_results_cell (w, 0, row); row++)
+    for (int col = 0; col < 3; col++)
+      {
+        GtkWidget *cell = results_cell_box (w, col, row);
+        GtkWidget *content = cell ? gtk_widget_get_first_child (cell) : NULL;
+        int need = 0;
+        if (content == NULL)
+          continue;
+        gtk_widget_measure (content, GTK_ORIENTATION_VERTICAL, gtk_widget_get_width (cell), &need, NULL,
+                            NULL, NULL);
+        ck_assert_msg (need <= gtk_widget_get_height (cell), "row %d column %d needs %d px, has %d", row,
+                       col, need, gtk_widget_get_height (cell));
+        cells++;
+      }
+  ck_assert_uint_gt (cells, 20);
+  bw_application_set_unit_system (app, BW_UNIT_SYSTEM_SI);
+  bw_gui_test_close_window (w);
+}
+END_TEST
+
 START_TEST (test_new_from_demo)
 {
   g_autofree char *demo = bw_gui_test_demo_path ();
@@ -823,6 +855,7 @@ window_suite (void)
   tcase_add_test (tc, test_about_repeats_caution);
   tcase_add_test (tc, test_every_case_table);
   tcase_add_test (tc, test_every_case_quantity_column_stays);
+  tcase_add_test (tc, test_results_cells_hold_their_text);
   tcase_add_test (tc, test_new_from_demo);
   tcase_add_test (tc, test_criteria_and_case_widgets);
   tcase_add_test (tc, test_save_as_chooser);
