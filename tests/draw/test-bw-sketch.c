@@ -652,6 +652,74 @@ START_TEST (test_sketch_tube_cell_detail)
 }
 END_TEST
 
+/* How many times NEEDLE occurs in HAY. */
+static guint
+count_of (const char *hay, const char *needle)
+{
+  guint n = 0;
+
+  for (const char *p = strstr (hay, needle); p; p = strstr (p + 1, needle))
+    n++;
+  return n;
+}
+
+/* The text of the demo plate settler's section drawn with SHAPE (0 plates, 1 circular tubes,
+ * 2 square tubes) at 1600x1000, from a PDF read back with pdftotext; NULL without pdftotext. */
+static char *
+tube_section_text (const char *dir, int shape)
+{
+  g_autoptr (BwProcessUnit) u = bw_process_unit_copy (unit ("east-sed"));
+  g_autoptr (GError) error = NULL;
+  g_autofree char *pdf = g_build_filename (dir, "tubes.pdf", NULL);
+  const char *argv[] = { "pdftotext", pdf, "-", NULL };
+  char *text = NULL;
+  int status = 0;
+
+  ck_assert (bw_process_unit_set (u, "shape", shape, NULL));
+  ck_assert_msg (bw_export_sketch (demo, u, BW_SKETCH_SECTION, BW_UNIT_SYSTEM_SI, bw_style_light (),
+                                   BW_EXPORT_PDF, pdf, 1600, 1000, &error),
+                 "%s", error ? error->message : "");
+  ck_assert (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL, &text, NULL,
+                           &status, NULL));
+  ck_assert_int_eq (status, 0);
+  g_unlink (pdf);
+  return text;
+}
+
+/* The tube-cell detail says what it shows: its caption with an enlargement above one, and one
+ * more dimension of the opening at its true size than the plates' section has (the demo's 50 mm
+ * channel spacing, a diameter "Ø 50 mm" for circular tubes, "50 mm" across square ones). */
+START_TEST (test_sketch_tube_cell_dimension)
+{
+  g_autofree char *dir = g_dir_make_tmp ("bw-tube-XXXXXX", NULL);
+  g_autofree char *plates = NULL;
+  guint base;
+
+  ck_assert_ptr_nonnull (dir);
+  if (g_find_program_in_path ("pdftotext") == NULL)
+    {
+      g_printerr ("no pdftotext: the detail's text is not read back\n");
+      g_rmdir (dir);
+      return;
+    }
+  plates = tube_section_text (dir, 0);
+  ck_assert_ptr_null (strstr (plates, "Tube cells"));
+  base = count_of (plates, "50 mm");
+  for (int shape = 1; shape < 3; shape++)
+    {
+      g_autofree char *text = tube_section_text (dir, shape);
+      const char *cap = strstr (text, "Tube cells, section A–A, ×");
+      ck_assert_msg (cap != NULL, "no detail caption in: %s", text);
+      ck_assert_double_gt (g_ascii_strtod (cap + strlen ("Tube cells, section A–A, ×"), NULL), 1.0);
+      ck_assert_uint_eq (count_of (text, "50 mm"), base + 1);
+      /* (circular tubes: every opening dimension is a diameter) */
+      if (shape == 1)
+        ck_assert_uint_eq (count_of (text, "Ø 50 mm"), base + 1);
+    }
+  g_rmdir (dir);
+}
+END_TEST
+
 START_TEST (test_sketch_light_and_dark)
 {
   const Case *k = &cases[_i];
@@ -1085,6 +1153,7 @@ bw_test_suite (void)
   tcase_add_loop_test (tc, test_sketch_new_views_to_scale, 0, N_SIZES);
   tcase_add_loop_test (tc, test_sketch_settler_plan_to_scale, 0, N_SIZES);
   tcase_add_test (tc, test_sketch_tube_cell_detail);
+  tcase_add_test (tc, test_sketch_tube_cell_dimension);
   tcase_add_loop_test (tc, test_sketch_light_and_dark, 0, N_CASES);
   tcase_add_loop_test (tc, test_sketch_layout_fits_world, 0, N_CASES * N_SIZES);
   tcase_add_loop_test (tc, test_sketch_variants, 0, G_N_ELEMENTS (variants));
