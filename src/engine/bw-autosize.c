@@ -125,6 +125,27 @@ footprint (const BwProcessUnit *u)
     }
 }
 
+/* The band of impeller to tank diameter, D/T, a rapid-mix design may have: turbine impellers in
+ * back-mix tanks are sized from about a fifth to a half of the tank (common practice, no source;
+ * the standard Rushton geometry is D/T = 1/3, from memory). Outside it the power-number
+ * correlations do not hold and the tank does not mix as one volume, so the search does not offer
+ * an impeller nearly as wide as its tank. Dimensionless. */
+#define RAPID_MIX_DT_MIN 0.2
+#define RAPID_MIX_DT_MAX 0.5
+
+static gboolean
+in_proportion (const BwProcessUnit *u)
+{
+  if (u->type == BW_PROCESS_RAPID_MIX)
+    {
+      /* width: the side of a square tank or the diameter of a round one, m */
+      const double t = u->values[bw_param_index (u->type, "width")];
+      const double d = u->values[bw_param_index (u->type, "impeller-diameter")];
+      return d >= RAPID_MIX_DT_MIN * t - 1e-9 && d <= RAPID_MIX_DT_MAX * t + 1e-9;
+    }
+  return TRUE;
+}
+
 /* Evaluates unit U (a modified copy) in every case. On a pass, fills CAND's objective and margins. */
 static gboolean
 try_candidate (const Ctx *x, const BwProcessUnit *u, BwCandidate *cand, guint64 *evals)
@@ -134,6 +155,8 @@ try_candidate (const Ctx *x, const BwProcessUnit *u, BwCandidate *cand, guint64 
   const guint running_all = u->n_parallel;
   const guint running_firm = u->n_parallel > u->n_standby ? u->n_parallel - u->n_standby : 1;
 
+  if (!in_proportion (u))
+    return FALSE;
   for (guint i = 0; i < x->n_rules; i++)
     margins[i] = G_MAXDOUBLE;
   for (guint c = 0; c < x->n_cases; c++)
@@ -234,11 +257,14 @@ describe (GString *s, BwProcessType type, const Dim *dims, guint n, gboolean cou
       g_autofree char *hi = bw_format_number (bw_unit_from_si (u, dims[i].hi), 3);
       g_autofree char *st = bw_format_number (spec->kind == BW_KIND_TEMPERATURE ? dims[i].step
                                                                                  : bw_unit_from_si (u, dims[i].step), 3);
-      g_string_append_printf (s, "%s%s %s-%s %s by %s %s", s->len ? ", " : "", spec->label, lo, hi,
-                              u->symbol, st, u->symbol);
+      if (s->len)
+        g_string_append (s, BW_ (", "));
+      /* TRANSLATORS: a searched range: "impeller speed 20.0-400 rpm by 5.00 rpm" */
+      g_string_append_printf (s, BW_ ("%s %s-%s %s by %s %s"), BW_ (spec->label), lo, hi, u->symbol, st,
+                              u->symbol);
     }
   if (count)
-    g_string_append (s, ", units in parallel");
+    g_string_append (s, BW_ (", units in parallel"));
 }
 
 /* Odometer over DIMS (and optionally the parallel count) on a copy of the unit. */
@@ -369,7 +395,9 @@ search_flocculator (Ctx *x, BwProcessUnit *work, BwAutosizeProgress progress, gp
           dims[nd++] = (Dim) { "spacing", 0.10, 1.50, 0.01 };
           dims[nd++] = (Dim) { "passes", 2, 60, 1 };
         }
-      g_string_append_printf (desc, "%sstage %u: ", s ? "; " : "", s + 1);
+      if (s)
+        g_string_append (desc, BW_ ("; "));
+      g_string_append_printf (desc, BW_ ("stage %u: "), s + 1);
       {
         GString *d2 = g_string_new (NULL);
         describe (d2, st->type, dims, nd, FALSE);
@@ -585,6 +613,8 @@ bw_autosize (const BwProject *p, const char *unit_id, const BwCriteriaSet *set, 
         const Dim d[] = { { "width", 0.5, 3.0, 0.1 }, { "impeller-diameter", 0.1, 1.5, 0.05 },
                           { "speed", 20.0 / 60, 400.0 / 60, 5.0 / 60 } };
         describe (desc, orig->type, d, G_N_ELEMENTS (d), FALSE);
+        g_string_append_printf (desc, BW_ (", with the impeller %g to %g times the tank width"),
+                                RAPID_MIX_DT_MIN, RAPID_MIX_DT_MAX);
         ok = grid_search (&x, work, d, G_N_ELEMENTS (d), orig->n_parallel, orig->n_parallel, progress,
                           user_data, out, error);
         break;

@@ -350,9 +350,9 @@ results_rebuild (BwAutosizeDialog *self)
       const BwCriterion *tight = NULL;
 
       if (r->objective == BW_OBJECTIVE_VOLUME)
-        head = g_strdup_printf (_("Design %u: volume %s, %u in parallel"), i + 1, obj, c->n_parallel);
+        head = g_strdup_printf (_("Design %u: total volume %s, %u in parallel"), i + 1, obj, c->n_parallel);
       else
-        head = g_strdup_printf (_("Design %u: %s %s (volume %s), %u in parallel"), i + 1,
+        head = g_strdup_printf (_("Design %u: total %s %s (total volume %s), %u in parallel"), i + 1,
                                 r->objective == BW_OBJECTIVE_FOOTPRINT ? _("footprint") : _("mixing power"),
                                 obj, vol, c->n_parallel);
       append_values (values, r, u, -1, c->values, units);
@@ -555,7 +555,10 @@ search_done (GObject *source, GAsyncResult *res, gpointer data)
       gtk_progress_bar_set_text (self->progress_bar, _("nothing found"));
       set_message (self, m);
       if (job->result.searched)
-        gtk_label_set_text (self->searched_label, job->result.searched);
+        {
+          g_autofree char *shown = bw_locale_localize_number (job->result.searched);
+          gtk_label_set_text (self->searched_label, shown);
+        }
     }
   else
     {

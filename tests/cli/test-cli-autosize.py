@@ -24,6 +24,10 @@ with tempfile.TemporaryDirectory() as tmp:
                 objs = [x[key] for x in designs]
                 assert objs == sorted(objs), objs
                 assert all(m["margin_fraction"] >= 0 for x in designs for m in x["margins"]), designs
+                if unit == "north-rm":
+                    # An impeller from 0.2 to 0.5 of the tank width (common practice, no source).
+                    ratios = [x["values"]["impeller-diameter"] / x["values"]["width"] for x in designs]
+                    assert all(0.2 - 1e-9 <= r <= 0.5 + 1e-9 for r in ratios), ratios
                 # The best and the last design, applied, pass every required criterion (`check`).
                 for rank in (1, len(designs)):
                     out = os.path.join(tmp, f"{unit}-{objective}-{rank}.bwproj")

@@ -191,13 +191,13 @@ START_TEST (test_search_lists_engine_designs_and_applies_once)
         }
     }
 
-  /* The list shows one row per design, each headed by its volume in the window's units. */
+  /* The list shows one row per design, each headed by its total volume in the window's units. */
   text = bw_autosize_dialog_dup_results_text (d);
   for (guint i = 0; i < want.n_best; i++)
     {
       g_autofree char *vol = bw_units_format (want.best[i].objective, BW_KIND_VOLUME,
                                               bw_window_get_unit_system (w));
-      g_autofree char *head = g_strdup_printf ("Design %u: volume %s, %u in parallel", i + 1, vol,
+      g_autofree char *head = g_strdup_printf ("Design %u: total volume %s, %u in parallel", i + 1, vol,
                                                want.best[i].n_parallel);
       ck_assert_msg (strstr (text, head) != NULL, "'%s' not in:\n%s", head, text);
     }
