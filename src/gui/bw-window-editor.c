@@ -274,7 +274,16 @@ field_flag (BwField *f, const char *message)
     }
   if (f->error_label)
     {
-      gtk_label_set_text (GTK_LABEL (f->error_label), message);
+      /* Under the reason, what the results on screen are for: the model keeps its last value. */
+      g_autofree char *kept = GTK_IS_ENTRY (f->widget) ? field_text (f) : NULL;
+      g_autofree char *note = NULL;
+      g_autofree char *shown = NULL;
+      if (kept && kept[0])
+        note = g_strdup_printf (_("Not applied: the results are for %s."), kept);
+      else if (kept)
+        note = g_strdup (_("Not applied: the results are for no value given."));
+      shown = note ? g_strdup_printf ("%s\n%s", message, note) : g_strdup (message);
+      gtk_label_set_text (GTK_LABEL (f->error_label), shown);
       gtk_widget_set_visible (f->error_label, TRUE);
     }
 }

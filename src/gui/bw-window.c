@@ -855,6 +855,8 @@ results_rebuild (BwWindow *self)
     {
       grid_clear (self->results_names);
       grid_clear (self->results_grid);
+      /* A new table starts at its first column, not where the last one was scrolled to. */
+      gtk_adjustment_set_value (gtk_scrolled_window_get_hadjustment (self->results_sideways), 0);
       g_ptr_array_set_size (self->results_rows, 0);
       g_ptr_array_set_size (self->results_labels, 0);
       g_free (self->results_shape);
