@@ -435,6 +435,16 @@ action_preferences (GSimpleAction *a, GVariant *v, gpointer data)
   gtk_switch_set_active (dark, self->dark);
   g_signal_connect (units, "notify::selected", G_CALLBACK (prefs_units_changed), self);
   g_signal_connect (dark, "notify::active", G_CALLBACK (prefs_dark_changed), self);
+  /* Escape and Ctrl+W close it, as a dialog's keys do, with or without a window manager. */
+  {
+    GtkEventController *keys = gtk_shortcut_controller_new ();
+    gtk_shortcut_controller_add_shortcut (GTK_SHORTCUT_CONTROLLER (keys),
+                                          gtk_shortcut_new (gtk_alternative_trigger_new (
+                                                              gtk_keyval_trigger_new (GDK_KEY_Escape, 0),
+                                                              gtk_keyval_trigger_new (GDK_KEY_w, GDK_CONTROL_MASK)),
+                                                            gtk_named_action_new ("window.close")));
+    gtk_widget_add_controller (GTK_WIDGET (w), keys);
+  }
   gtk_window_set_transient_for (w, GTK_WINDOW (active_bw_window (self)));
   gtk_window_present (w);
 }

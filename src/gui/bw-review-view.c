@@ -78,7 +78,8 @@ cell (GtkBox *box, const char *text, int width_chars, gboolean right)
   else
     {
       gtk_label_set_width_chars (GTK_LABEL (l), 6);
-      gtk_label_set_max_width_chars (GTK_LABEL (l), 10);
+      /* natural up to a criterion's whole title, so the row gives it its free room first */
+      gtk_label_set_max_width_chars (GTK_LABEL (l), 40);
       gtk_widget_set_hexpand (l, TRUE);
     }
   gtk_widget_set_tooltip_text (l, text);
@@ -440,8 +441,8 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
       line = g_strdup_printf (_("%s · clause: %s"), ct, cite);
       cell (top, element, 12, FALSE);
       cell (top, c->criterion->title, 0, FALSE);
-      cell (top, value, 17, TRUE);
-      cell (top, limit, 26, TRUE);
+      cell (top, value, 13, TRUE);
+      cell (top, limit, 22, TRUE);
       gtk_widget_add_css_class (cell (bottom, line, 0, FALSE), "dim-label");
       accessible = g_strdup_printf ("%s: %s %s, %s, limit %s; %s", kind_text (f), element, c->criterion->title,
                                     value, limit, cite);

@@ -509,7 +509,10 @@ nav_rebuild (BwWindow *self)
         {
           const BwProcessUnit *u = g_ptr_array_index (t->units, k);
           g_autofree char *kind = u->n_parallel > 1
-                                    ? g_strdup_printf ("%s ×%u", type_short (u->type), u->n_parallel)
+                                    /* TRANSLATORS: a unit's short type and how many are in parallel,
+                                     * "rapid mix ×2"; a long type may go second ("×%2$u %1$s") so
+                                     * the count stays in view when the column cuts it short */
+                                    ? g_strdup_printf (_("%s ×%u"), type_short (u->type), u->n_parallel)
                                     : g_strdup (type_short (u->type));
           row = nav_row (u->id, t->id, u->name ? u->name : u->id, kind, 1, FALSE);
           nav_row_enable_dnd (self, row);
