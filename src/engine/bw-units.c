@@ -722,11 +722,10 @@ bw_format_number (double value, int sig)
   return g_strdup (buf);
 }
 
-char *
-bw_units_format (double value_si, BwQuantityKind kind, BwUnitSystem system)
+const BwUnit *
+bw_units_reading_unit (double value_si, BwQuantityKind kind, BwUnitSystem system)
 {
   const BwUnit *unit;
-  g_autofree char *num = NULL;
 
   g_return_val_if_fail (kind < BW_N_KINDS, NULL);
   unit = bw_units_display_unit (kind, system);
@@ -750,12 +749,28 @@ bw_units_format (double value_si, BwQuantityKind kind, BwUnitSystem system)
       else
         unit = unit_by_ascii (a < 1e-4 ? "um" : a < FT ? "in" : "ft");
     }
+  return unit;
+}
+
+char *
+bw_units_format_in (double value_si, const BwUnit *unit)
+{
+  g_autofree char *num = NULL;
+
+  g_return_val_if_fail (unit != NULL, NULL);
   num = bw_format_number (bw_unit_from_si (unit, value_si), 4);
   if (unit->symbol[0] == '\0')
     return g_steal_pointer (&num);
   if (strcmp (unit->symbol, "°") == 0 || strcmp (unit->symbol, "%") == 0)
     return g_strconcat (num, unit->symbol, NULL);
   return g_strconcat (num, " ", unit->symbol, NULL);
+}
+
+char *
+bw_units_format (double value_si, BwQuantityKind kind, BwUnitSystem system)
+{
+  g_return_val_if_fail (kind < BW_N_KINDS, NULL);
+  return bw_units_format_in (value_si, bw_units_reading_unit (value_si, kind, system));
 }
 
 gboolean

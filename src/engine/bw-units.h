@@ -86,6 +86,13 @@ const BwUnit *bw_units_display_unit (BwQuantityKind kind, BwUnitSystem system);
  * seconds, minutes or hours; lengths to µm, mm or m (µm, in or ft). Four significant figures; integers of five or more digits in full. */
 char *bw_units_format (double value_si, BwQuantityKind kind, BwUnitSystem system);
 
+/* The unit bw_units_format reads VALUE_SI of KIND in (minutes for 300 s, mm for 0.05 m, ...). */
+const BwUnit *bw_units_reading_unit (double value_si, BwQuantityKind kind, BwUnitSystem system);
+
+/* VALUE_SI in UNIT, four significant figures, with the unit's symbol: "89.36 min". For a row of
+ * values read in one unit (the unit bw_units_reading_unit gives for the largest of them). */
+char *bw_units_format_in (double value_si, const BwUnit *unit);
+
 /* Formats VALUE (already in the display unit) with SIG significant figures and no unit. */
 char *bw_format_number (double value, int sig);
 

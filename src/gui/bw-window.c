@@ -808,6 +808,28 @@ governs (GArray *gov, const BwElementResult *el, int q, int c)
   return FALSE;
 }
 
+/* The unit a row of the table reads in: the one its largest value reads in, so that one row
+ * does not mix minutes with hours, or mm with m. */
+static const BwUnit *
+row_unit (const BwResults *r, const BwElementResult *el, int q, BwQuantityKind kind, BwUnitSystem units)
+{
+  double big = 0;
+
+  for (guint c = 0; c < r->n_cases; c++)
+    if (bw_quantity_set_has (&el->values[c], (BwQuantity) q) && isfinite (el->values[c].values[q]))
+      big = MAX (big, fabs (el->values[c].values[q]));
+  return bw_units_reading_unit (big, kind, units);
+}
+
+/* VALUE_SI in UNIT, with the locale's decimal separator. */
+static char *
+format_in (double value_si, const BwUnit *unit)
+{
+  g_autofree char *c = bw_units_format_in (value_si, unit);
+
+  return bw_locale_localize_number (c);
+}
+
 /* What decides which widgets the table has: the element, the columns, and per row the
  * quantity, its checks (with or without a governing case) and, in the two-column view,
  * whether both extremes are the same. Equal shapes have the same labels in the same order. */
@@ -903,9 +925,11 @@ results_rebuild (BwWindow *self)
       GArray *gov;
       GtkWidget *qbox = NULL;
       GtkLabel *qlabel;
+      const BwUnit *ru;
 
       if (lo < 0)
         continue;
+      ru = row_unit (self->results, el, q, info->kind, self->units);
       gov = g_array_new (FALSE, FALSE, sizeof (int));
       /* The quantity, with the criteria that judge it beneath. */
       if ((qlabel = pass_label (&pass, bw_label_text (info->label), &l)))
@@ -945,7 +969,7 @@ results_rebuild (BwWindow *self)
           if (ck->governing_case >= 0)
             {
               g_autofree char *cl = bw_label_load_case (&self->results->cases[ck->governing_case]);
-              g_autofree char *gv = bw_locale_format (ck->value, info->kind, self->units);
+              g_autofree char *gv = format_in (ck->value, ru);
               g_autofree char *cc = case_compact (&self->results->cases[ck->governing_case]);
               g_autofree char *line = g_strdup_printf (_("governs: %s, %s"), gv, cc);
               GtkLabel *gl, *made_gl = pass_label (&pass, line, &gl);
@@ -974,15 +998,15 @@ results_rebuild (BwWindow *self)
           {
             const BwQuantitySet *s = &el->values[c];
             g_autofree char *v = bw_quantity_set_has (s, (BwQuantity) q)
-                                   ? bw_locale_format (s->values[q], info->kind, self->units)
+                                   ? format_in (s->values[q], ru)
                                    : g_strdup ("—");
             cell (&pass, 1 + (int) c, row, v, GOVERNS ((int) c) ? "bw-governing" : NULL, 1);
           }
       else
         {
           const double vlo = el->values[lo].values[q], vhi = el->values[hi].values[q];
-          g_autofree char *a = bw_locale_format (vlo, info->kind, self->units);
-          g_autofree char *b = bw_locale_format (vhi, info->kind, self->units);
+          g_autofree char *a = format_in (vlo, ru);
+          g_autofree char *b = format_in (vhi, ru);
           g_autofree char *ca = case_compact (&self->results->cases[lo]);
           g_autofree char *cb = case_compact (&self->results->cases[hi]);
           gboolean same = vlo == vhi;

@@ -698,6 +698,35 @@ START_TEST (test_results_cells_hold_their_text)
 }
 END_TEST
 
+/* The unit after the last space of TEXT ("89.36 min" -> "min"). */
+static const char *
+unit_of (const char *text)
+{
+  const char *sp = strrchr (text, ' ');
+
+  return sp ? sp + 1 : "";
+}
+
+/* One row reads in one unit: the south clarifier's detention time is 89 min at the smallest and
+ * 6.7 h at the largest (demo results), and both columns read in hours, the unit of the largest. */
+START_TEST (test_results_row_in_one_unit)
+{
+  BwWindow *w = bw_gui_test_demo_window (app, 50);
+  GtkLabel *lo, *hi;
+
+  bw_window_select_unit (w, "south-sed");
+  bw_gui_test_pump (20);
+  lo = results_value_label (w, "detention time", 1);
+  hi = results_value_label (w, "detention time", 2);
+  ck_assert_ptr_nonnull (lo);
+  ck_assert_ptr_nonnull (hi);
+  ck_assert_str_eq (unit_of (gtk_label_get_text (hi)), "h");
+  ck_assert_str_eq (unit_of (gtk_label_get_text (lo)), "h");
+  ck_assert_msg (g_str_has_prefix (gtk_label_get_text (lo), "1.489 "), "%s", gtk_label_get_text (lo));
+  bw_gui_test_close_window (w);
+}
+END_TEST
+
 START_TEST (test_new_from_demo)
 {
   g_autofree char *demo = bw_gui_test_demo_path ();
@@ -859,6 +888,7 @@ window_suite (void)
   tcase_add_test (tc, test_every_case_table);
   tcase_add_test (tc, test_every_case_quantity_column_stays);
   tcase_add_test (tc, test_results_cells_hold_their_text);
+  tcase_add_test (tc, test_results_row_in_one_unit);
   tcase_add_test (tc, test_new_from_demo);
   tcase_add_test (tc, test_criteria_and_case_widgets);
   tcase_add_test (tc, test_save_as_chooser);
