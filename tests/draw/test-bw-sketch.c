@@ -694,9 +694,10 @@ START_TEST (test_sketch_tube_cell_dimension)
   g_autofree char *dir = g_dir_make_tmp ("bw-tube-XXXXXX", NULL);
   g_autofree char *plates = NULL;
   guint base;
+  g_autofree char *tool = g_find_program_in_path ("pdftotext");
 
   ck_assert_ptr_nonnull (dir);
-  if (g_find_program_in_path ("pdftotext") == NULL)
+  if (tool == NULL)
     {
       g_printerr ("no pdftotext: the detail's text is not read back\n");
       g_rmdir (dir);

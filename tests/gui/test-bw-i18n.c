@@ -339,8 +339,9 @@ START_TEST (test_report_in_spanish)
   g_autoptr (GError) error = NULL;
   const char *argv[] = { "pdftotext", pdf, "-", NULL };
   int status = 0;
+  g_autofree char *tool = g_find_program_in_path ("pdftotext");
 
-  if (g_find_program_in_path ("pdftotext") == NULL)
+  if (tool == NULL)
     {
       g_printerr ("no pdftotext: the report text is not read back\n");
       close_window (w);
