@@ -712,10 +712,8 @@ cases_refresh (BwWindow *self)
         gtk_check_button_set_label (GTK_CHECK_BUTTON (b), label);
       if (gtk_check_button_get_active (GTK_CHECK_BUTTON (b)) != c->enabled)
         gtk_check_button_set_active (GTK_CHECK_BUTTON (b), c->enabled);
-      if (gtk_widget_has_css_class (b, "error"))
-        gtk_widget_remove_css_class (b, "error");
-      if (gtk_widget_get_tooltip_text (b) != NULL)
-        gtk_widget_set_tooltip_text (b, NULL);
+      _bw_widget_class_exclusive (b, NULL, (const char *const[]) { "error" }, 1);
+      _bw_widget_tooltip_update (b, NULL);
     }
   self->updating = FALSE;
 }

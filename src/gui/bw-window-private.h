@@ -148,5 +148,10 @@ void _bw_window_files_class_init (GtkWidgetClass *widget_class);
 
 /* Sets TEXT on LABEL only when it differs, so an unchanged label keeps its layout. */
 void _bw_label_update (GtkLabel *label, const char *text);
+/* Gives WIDGET the class WANT (or none, for NULL) among the N mutually exclusive CLASSES,
+ * adding or removing only what differs (each change restyles the widget). */
+void _bw_widget_class_exclusive (GtkWidget *widget, const char *want, const char *const *classes, guint n);
+/* Sets TIP (or none) on WIDGET only when it differs. */
+void _bw_widget_tooltip_update (GtkWidget *widget, const char *tip);
 
 G_END_DECLS

@@ -351,6 +351,23 @@ _bw_label_update (GtkLabel *label, const char *text)
     gtk_label_set_text (label, text);
 }
 
+void
+_bw_widget_class_exclusive (GtkWidget *widget, const char *want, const char *const *classes, guint n)
+{
+  for (guint i = 0; i < n; i++)
+    if (g_strcmp0 (classes[i], want) != 0 && gtk_widget_has_css_class (widget, classes[i]))
+      gtk_widget_remove_css_class (widget, classes[i]);
+  if (want && !gtk_widget_has_css_class (widget, want))
+    gtk_widget_add_css_class (widget, want);
+}
+
+void
+_bw_widget_tooltip_update (GtkWidget *widget, const char *tip)
+{
+  if (g_strcmp0 (gtk_widget_get_tooltip_text (widget), tip) != 0)
+    gtk_widget_set_tooltip_text (widget, tip);
+}
+
 static void
 set_dot (BwWindow *self, GtkWidget *row)
 {
@@ -366,14 +383,10 @@ set_dot (BwWindow *self, GtkWidget *row)
 
   /* Only what changed: a CSS class added or removed restyles the row, which after every edit
    * of every row was most of the plant list's cost. */
-  for (guint i = 0; i < G_N_ELEMENTS (classes); i++)
-    if (classes[i] != want && gtk_widget_has_css_class (dot, classes[i]))
-      gtk_widget_remove_css_class (dot, classes[i]);
-  if (want && !gtk_widget_has_css_class (dot, want))
-    gtk_widget_add_css_class (dot, want);
+  _bw_widget_class_exclusive (dot, want, classes, G_N_ELEMENTS (classes));
   _bw_label_update (GTK_LABEL (dot), s < 0 ? "" : "●");
-  if (tip && g_strcmp0 (gtk_widget_get_tooltip_text (dot), tip) != 0)
-    gtk_widget_set_tooltip_text (dot, tip);
+  if (tip)
+    _bw_widget_tooltip_update (dot, tip);
 }
 
 static void
@@ -665,24 +678,6 @@ typedef struct
 static const char *const status_classes[] = { "bw-status-pass", "bw-status-warn", "bw-status-fail",
                                               "bw-status-na" };
 
-/* Gives WIDGET the class WANT (or none) among the exclusive CLASSES, touching nothing else. */
-static void
-class_exclusive (GtkWidget *widget, const char *want, const char *const *classes, guint n)
-{
-  for (guint i = 0; i < n; i++)
-    if (g_strcmp0 (classes[i], want) != 0 && gtk_widget_has_css_class (widget, classes[i]))
-      gtk_widget_remove_css_class (widget, classes[i]);
-  if (want && !gtk_widget_has_css_class (widget, want))
-    gtk_widget_add_css_class (widget, want);
-}
-
-static void
-tooltip_update (GtkWidget *widget, const char *tip)
-{
-  if (g_strcmp0 (gtk_widget_get_tooltip_text (widget), tip) != 0)
-    gtk_widget_set_tooltip_text (widget, tip);
-}
-
 /* The next label of the table, with TEXT: new (recorded) in a rebuild, the recorded one in an
  * update. Returns NULL in an update (the caller attaches only new labels). */
 static GtkLabel *
@@ -737,7 +732,7 @@ cell (ResultsPass *p, int col, int row, const char *text, const char *css, doubl
     }
   /* Only the governing mark changes from one edit to the next. */
   if (css == NULL || strcmp (css, "bw-governing") == 0)
-    class_exclusive (GTK_WIDGET (l), css, governing, 1);
+    _bw_widget_class_exclusive (GTK_WIDGET (l), css, governing, 1);
   return GTK_WIDGET (l);
 }
 
@@ -765,7 +760,7 @@ value_cell (ResultsPass *p, int col, int row, const char *value, const char *cas
       g_object_set_data (G_OBJECT (box), "bw-text", made_v);
       attach_cell (p, box, col, row);
     }
-  class_exclusive (GTK_WIDGET (v), governs ? "bw-governing" : NULL, governing, 1);
+  _bw_widget_class_exclusive (GTK_WIDGET (v), governs ? "bw-governing" : NULL, governing, 1);
 }
 
 static char *
@@ -901,7 +896,7 @@ results_rebuild (BwWindow *self)
   {
     g_autofree char *h = g_strdup_printf (_("Results: %s"), el->label);
     _bw_label_update (self->results_heading, h);
-    tooltip_update (GTK_WIDGET (self->results_heading),
+    _bw_widget_tooltip_update (GTK_WIDGET (self->results_heading),
                     _("Every enabled load case, from the engine. A value that governs a "
                       "criterion is underlined; hover a criterion for its governing case."));
   }
@@ -954,7 +949,7 @@ results_rebuild (BwWindow *self)
           lim = limit_text (ck, self->units);
           made_chip = pass_label (&pass, bw_label_check_status (ck->status), &chip);
           made_lim = pass_label (&pass, lim, &lim_l);
-          class_exclusive (GTK_WIDGET (chip), status_class (ck->status), status_classes,
+          _bw_widget_class_exclusive (GTK_WIDGET (chip), status_class (ck->status), status_classes,
                            G_N_ELEMENTS (status_classes));
           if (made_chip)
             {
@@ -986,11 +981,11 @@ results_rebuild (BwWindow *self)
                   gtk_widget_set_margin_start (GTK_WIDGET (made_gl), 10);
                   gtk_box_append (GTK_BOX (qbox), GTK_WIDGET (made_gl));
                 }
-              tooltip_update (GTK_WIDGET (gl), tip);
+              _bw_widget_tooltip_update (GTK_WIDGET (gl), tip);
             }
           else
             tip = g_strdup (ck->criterion->title);
-          tooltip_update (gtk_widget_get_parent (GTK_WIDGET (chip)), tip);
+          _bw_widget_tooltip_update (gtk_widget_get_parent (GTK_WIDGET (chip)), tip);
         }
 #define GOVERNS(c) governs (gov, el, q, (c))
       if (every)
