@@ -8,6 +8,7 @@
 
 #include <glib/gi18n-lib.h>
 #include <locale.h>
+#include <math.h>
 #include <string.h>
 
 const char *
@@ -108,6 +109,17 @@ bw_label_quantity (double value_si, BwQuantityKind kind, BwUnitSystem system)
   g_autofree char *c = bw_units_format (value_si, kind, system);
 
   return bw_label_number (c);
+}
+
+char *
+bw_label_relative_change (double rel)
+{
+  g_autofree char *t = NULL;
+
+  if (fabs (rel * 100) < 0.05)
+    return bw_label_number ("0.0 %");
+  t = g_strdup_printf ("%+.1f %%", rel * 100);
+  return bw_label_number (t);
 }
 
 const char *

@@ -43,5 +43,8 @@ const char *bw_label_decimal_point (void);
 char *bw_label_number (const char *text);
 /* bw_units_format of VALUE_SI in SYSTEM, with the locale's separator as above. A new string. */
 char *bw_label_quantity (double value_si, BwQuantityKind kind, BwUnitSystem system);
+/* A relative difference REL (0.05 = 5 %) as a signed percentage to 0.1 %, "+4.8 %", with the
+ * locale's separator; one that rounds to zero is written unsigned, "0.0 %". A new string. */
+char *bw_label_relative_change (double rel);
 
 G_END_DECLS

@@ -1511,18 +1511,6 @@ stated_case (const Review *rv, const BwFinding *f)
     }
 }
 
-/* A relative difference as a signed percentage; one that rounds to zero is written unsigned. */
-static char *
-diff_text (double rel)
-{
-  g_autofree char *t = NULL;
-
-  if (fabs (rel * 100) < 0.05)
-    return bw_label_number ("0.0 %");
-  t = g_strdup_printf ("%+.1f %%", rel * 100);
-  return bw_label_number (t);
-}
-
 static void
 stated_table (Doc *d, const Review *rv, BwFindingKind kind, gboolean with_computed)
 {
@@ -1540,7 +1528,7 @@ stated_table (Doc *d, const Review *rv, BwFindingKind kind, gboolean with_comput
                       g_strdup (bw_label_text (bw_quantity_info (fi->stated->quantity)->label)), stated_case (rv, fi),
                       q_fmt (fi->stated->quantity, fi->stated->value, rv->units),
                       with_computed ? q_fmt (fi->stated->quantity, fi->computed, rv->units) : g_strdup ("—"),
-                      with_computed ? diff_text (fi->relative_difference) : g_strdup ("—"),
+                      with_computed ? bw_label_relative_change (fi->relative_difference) : g_strdup ("—"),
                       g_strdup (fi->stated->comment ? fi->stated->comment : ""));
     }
   if (t->rows->len == 0)

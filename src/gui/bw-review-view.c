@@ -167,17 +167,6 @@ citation_text (const BwCriterion *c)
   return g_string_free (s, FALSE);
 }
 
-static char *
-percent_text (double rel)
-{
-  g_autofree char *t = NULL;
-
-  if (fabs (rel * 100) < 0.05)
-    return bw_locale_localize_number ("0.0 %");
-  t = g_strdup_printf ("%+.1f %%", rel * 100);
-  return bw_locale_localize_number (t);
-}
-
 static double
 window_tolerance (BwReviewView *self)
 {
@@ -384,7 +373,7 @@ finding_row (BwReviewView *self, const BwResults *r, const BwFinding *f, guint s
       g_autofree char *sv = bw_locale_format (f->stated->value, info->kind, units);
       g_autofree char *cv = f->kind != BW_FINDING_NOT_COMPUTED ? bw_locale_format (f->computed, info->kind, units)
                                                                 : g_strdup ("—");
-      g_autofree char *dv = f->kind != BW_FINDING_NOT_COMPUTED ? percent_text (f->relative_difference)
+      g_autofree char *dv = f->kind != BW_FINDING_NOT_COMPUTED ? bw_label_relative_change (f->relative_difference)
                                                                 : g_strdup ("—");
       g_autofree char *ct = stated_case_text (r, f);
       g_autofree char *line = f->stated->line ? g_strdup_printf (_("line %u · %s"), f->stated->line, ct)
