@@ -319,7 +319,8 @@ START_TEST (test_review_numbers_in_spanish)
   bw_gui_test_pump (10);
   ck_assert (!gtk_widget_has_css_class (tol, "error"));
   ck_assert_double_eq_tol (bw_window_get_project (w)->review_tolerance, 0.025, 1e-12);
-  /* A criterion finding's value and limit (the demo's north rapid mix warns on detention). */
+  /* A criterion finding's value and limit: the demo's north rapid mix warns on detention against
+   * the textbook set's preferred 7 s (data/criteria/textbook-ranges.xml, which cites its source). */
   bw_review_view_refresh (BW_REVIEW_VIEW (v));
   append_labels (bw_review_view_get_findings_list (BW_REVIEW_VIEW (v)), shown);
   ck_assert_msg (strstr (shown->str, "7,000 s") != NULL, "no decimal comma in: %s", shown->str);

@@ -708,7 +708,8 @@ unit_of (const char *text)
 }
 
 /* One row reads in one unit: the south clarifier's detention time is 89 min at the smallest and
- * 6.7 h at the largest (demo results), and both columns read in hours, the unit of the largest. */
+ * 6.7 h at the largest (the engine's results for the demo), and both columns read in hours, the
+ * unit of the largest: 89.36 min is 1.489 h (derived, 89.36 / 60). */
 START_TEST (test_results_row_in_one_unit)
 {
   BwWindow *w = bw_gui_test_demo_window (app, 50);
